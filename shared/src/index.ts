@@ -1,0 +1,2 @@
+// Public API of @panelpass/shared. Each area re-exports its own module.
+export * from './errors';
