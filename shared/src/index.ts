@@ -1,2 +1,4 @@
 // Public API of @panelpass/shared. Each area re-exports its own module.
 export * from './errors';
+export * from './reasons';
+export * from './climate';

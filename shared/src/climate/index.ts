@@ -1,0 +1,3 @@
+export * from './temperature';
+export * from './dew-point';
+export * from './gate';
