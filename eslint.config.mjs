@@ -23,7 +23,7 @@ export default tseslint.config(
     languageOptions: {
       parserOptions: {
         projectService: {
-          allowDefaultProject: ['*.mjs', '*.js', 'scripts/*/*.mjs', 'scripts/bench/*.mjs'],
+          allowDefaultProject: ['*.mjs'],
         },
         tsconfigRootDir: import.meta.dirname,
       },
@@ -40,7 +40,10 @@ export default tseslint.config(
   {
     files: ['**/*.mjs', '**/*.js', '**/*.cjs'],
     ...tseslint.configs.disableTypeChecked,
-    languageOptions: { globals: { ...globals.node } },
+    languageOptions: {
+      ...tseslint.configs.disableTypeChecked.languageOptions,
+      globals: { ...globals.node },
+    },
   },
   {
     files: ['pwa/src/**/*.{ts,tsx}'],
@@ -59,14 +62,23 @@ export default tseslint.config(
         'error',
         {
           patterns: [
-            { group: ['@nestjs/*', 'react', 'react-dom', 'dexie', '@ionic/*', 'typeorm'], message: 'shared/ must stay framework-free.' },
+            {
+              group: ['@nestjs/*', 'react', 'react-dom', 'dexie', '@ionic/*', 'typeorm'],
+              message: 'shared/ must stay framework-free.',
+            },
           ],
         },
       ],
     },
   },
   {
-    files: ['**/*.test.ts', '**/*.spec.ts', '**/*.e2e-spec.ts', '**/test/**/*.ts', '**/e2e/**/*.ts'],
+    files: [
+      '**/*.test.ts',
+      '**/*.spec.ts',
+      '**/*.e2e-spec.ts',
+      '**/test/**/*.ts',
+      '**/e2e/**/*.ts',
+    ],
     rules: {
       '@typescript-eslint/no-unsafe-assignment': 'off',
       '@typescript-eslint/no-unsafe-member-access': 'off',

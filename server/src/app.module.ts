@@ -1,0 +1,35 @@
+import { Module } from '@nestjs/common';
+import { ConfigModule, ConfigService } from '@nestjs/config';
+import { APP_FILTER, APP_GUARD, APP_PIPE } from '@nestjs/core';
+import { TypeOrmModule } from '@nestjs/typeorm';
+import { AuthModule } from './auth/auth.module';
+import { JwtAuthGuard } from './auth/jwt-auth.guard';
+import { RolesGuard } from './auth/roles.guard';
+import { AllExceptionsFilter } from './common/all-exceptions.filter';
+import { createValidationPipe } from './common/validation.pipe';
+import { type EnvironmentVariables, validateEnv } from './config/env.validation';
+import { dataSourceOptions } from './database/data-source';
+import { HealthModule } from './health/health.module';
+import { InvitesModule } from './invites/invites.module';
+
+@Module({
+  imports: [
+    ConfigModule.forRoot({ isGlobal: true, validate: validateEnv, cache: true }),
+    TypeOrmModule.forRootAsync({
+      inject: [ConfigService],
+      useFactory: (config: ConfigService<EnvironmentVariables, true>) =>
+        dataSourceOptions(config.get('DATABASE_URL', { infer: true })),
+    }),
+    AuthModule,
+    InvitesModule,
+    HealthModule,
+  ],
+  providers: [
+    // Registered here (not in main.ts) so tests that build AppModule get them too.
+    { provide: APP_PIPE, useFactory: createValidationPipe },
+    { provide: APP_FILTER, useClass: AllExceptionsFilter },
+    { provide: APP_GUARD, useClass: JwtAuthGuard },
+    { provide: APP_GUARD, useClass: RolesGuard },
+  ],
+})
+export class AppModule {}

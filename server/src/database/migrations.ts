@@ -1,0 +1,4 @@
+import { Foundation1764600000000 } from './migrations/1764600000000-Foundation';
+
+/** Every migration in order. Append only; never edit one that has landed. */
+export const migrations = [Foundation1764600000000];

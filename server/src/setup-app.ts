@@ -1,0 +1,76 @@
+import type { INestApplication } from '@nestjs/common';
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import { DocumentBuilder, type OpenAPIObject, SwaggerModule } from '@nestjs/swagger';
+import express from 'express';
+import helmet from 'helmet';
+import { existsSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+
+export function buildOpenApi(app: INestApplication): OpenAPIObject {
+  const config = new DocumentBuilder()
+    .setTitle('Panelpass API')
+    .setDescription('The system of record behind the Panelpass field app.')
+    .setVersion('0.1.0')
+    .addBearerAuth()
+    .build();
+  return SwaggerModule.createDocument(app, config);
+}
+
+/** Everything main.ts and the e2e tests both need: prefix, headers, docs, the built app at `/`. */
+export function setupApp(app: NestExpressApplication, pwaDist?: string): void {
+  app.setGlobalPrefix('api');
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          // Ionic sets inline styles on its components.
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'", 'data:'],
+          connectSrc: ["'self'"],
+          workerSrc: ["'self'"],
+          manifestSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          baseUri: ["'none'"],
+          frameAncestors: ["'none'"],
+          formAction: ["'self'"],
+          // Served over plain HTTP on loopback in development; TLS is the proxy's job.
+          upgradeInsecureRequests: null,
+        },
+      },
+      referrerPolicy: { policy: 'no-referrer' },
+    }),
+  );
+  SwaggerModule.setup('api/docs', app, () => buildOpenApi(app), {
+    jsonDocumentUrl: 'api/docs-json',
+  });
+
+  if (pwaDist) {
+    const root = resolve(pwaDist);
+    if (!existsSync(join(root, 'index.html'))) {
+      throw new Error(
+        `PWA_DIST=${pwaDist} has no index.html; build the app first (npm run build -w pwa)`,
+      );
+    }
+    // The service worker and index.html must always be revalidated; hashed assets are immutable.
+    app.use(
+      express.static(root, {
+        index: false,
+        setHeaders: (res, path) => {
+          if (/[\\/]assets[\\/]/.test(path))
+            res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+          else res.setHeader('Cache-Control', 'no-cache');
+        },
+      }),
+    );
+    app.use((req: express.Request, res: express.Response, next: express.NextFunction) => {
+      if (req.method !== 'GET' || req.path.startsWith('/api')) return next();
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(join(root, 'index.html'));
+    });
+  }
+}
