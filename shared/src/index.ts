@@ -2,3 +2,4 @@
 export * from './errors';
 export * from './reasons';
 export * from './climate';
+export * from './cure';

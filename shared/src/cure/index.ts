@@ -1,0 +1,4 @@
+export * from './temperature-factor';
+export * from './product';
+export * from './cure-clock';
+export * from './planner';
