@@ -3,3 +3,5 @@ export * from './errors';
 export * from './reasons';
 export * from './climate';
 export * from './cure';
+export * from './dwell';
+export * from './jobs';

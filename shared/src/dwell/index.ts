@@ -1,0 +1,3 @@
+export * from './flush';
+export * from './deadline';
+export * from './masking';
