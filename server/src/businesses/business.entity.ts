@@ -15,6 +15,21 @@ export class Business {
   @Column({ type: 'text' })
   name: string;
 
+  /** Prices, factors, tax, travel bands, units and default waits (see settings.dto.ts). */
+  @Column({ type: 'jsonb', default: () => "'{}'" })
+  settings: Record<string, unknown>;
+
+  /** IANA time zone the business works in (for "today" and reminders). */
+  @Column({ type: 'text', default: 'UTC' })
+  timezone: string;
+
+  @Column({ type: 'text', default: 'USD' })
+  currency: string;
+
+  /** The next invoice number; taken under a row lock so numbers have no gaps. */
+  @Column({ type: 'integer', default: 1 })
+  nextInvoiceNumber: number;
+
   @CreateDateColumn({ type: 'timestamptz' })
   createdAt: Date;
 

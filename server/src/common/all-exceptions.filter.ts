@@ -45,7 +45,8 @@ export class AllExceptionsFilter implements ExceptionFilter {
       if (typeof response === 'object' && response !== null && 'code' in response) {
         return response as ErrorBody;
       }
-      const raw = typeof response === 'string' ? response : (response as { message?: unknown }).message;
+      const raw =
+        typeof response === 'string' ? response : (response as { message?: unknown }).message;
       const message = Array.isArray(raw)
         ? raw.map(String).join('; ')
         : typeof raw === 'string'

@@ -1,4 +1,5 @@
 import { Foundation1764600000000 } from './migrations/1764600000000-Foundation';
+import { BusinessRecords1764600001000 } from './migrations/1764600001000-BusinessRecords';
 
 /** Every migration in order. Append only; never edit one that has landed. */
-export const migrations = [Foundation1764600000000];
+export const migrations = [Foundation1764600000000, BusinessRecords1764600001000];

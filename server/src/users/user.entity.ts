@@ -40,6 +40,10 @@ export class User {
   @Column({ type: 'text' })
   role: Role;
 
+  /** For the `customer` role: the customer record this person is. */
+  @Column({ type: 'uuid', nullable: true })
+  customerId: string | null;
+
   /** argon2id; null for customers, who sign in by link. */
   @Column({ type: 'text', nullable: true })
   passwordHash: string | null;
