@@ -4,4 +4,4 @@ export * from './reasons';
 export * from './climate';
 export * from './cure';
 export * from './dwell';
-export * from './jobs';
+export * from './film';

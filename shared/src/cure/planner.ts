@@ -3,7 +3,7 @@
 import { TempUnit, formatTemp } from '../climate/temperature';
 import { InputError } from '../errors';
 import { MS_PER_MINUTE, minutesText } from '../internal/format';
-import { epochMs, finite, positiveInteger } from '../internal/validate';
+import { epochMs, finite, list, positiveInteger } from '../internal/validate';
 import { BASIS, Reason, noStops, reason } from '../reasons';
 import { CureClock, TempReading, checkReadings } from './cure-clock';
 import { CureProduct, checkCureProduct } from './product';
@@ -162,10 +162,9 @@ export function planChip(input: ChipPlanInput): ChipPlanResult {
   const nowMs = epochMs('nowMs', input.nowMs);
   const planned = positiveInteger('layersPlanned', input.layersPlanned);
   const unit = input.displayUnit ?? 'C';
-  if (!Array.isArray(input.layersAppliedAtMs)) {
-    throw new InputError('layersAppliedAtMs', 'non-empty', 'layersAppliedAtMs must be a list');
-  }
-  const applied = input.layersAppliedAtMs.map((t, i) => epochMs(`layersAppliedAtMs[${i}]`, t));
+  const applied = list('layersAppliedAtMs', input.layersAppliedAtMs).map((t, i) =>
+    epochMs(`layersAppliedAtMs[${i}]`, t),
+  );
   applied.sort((a, b) => a - b);
   const latestApplied = applied[applied.length - 1];
   if (latestApplied !== undefined && latestApplied > nowMs) {

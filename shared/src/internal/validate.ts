@@ -105,3 +105,16 @@ export function bool(field: string, value: unknown): boolean {
 export function epochMs(field: string, value: unknown): number {
   return finite(field, value);
 }
+
+// Array.isArray narrows to any[]; this keeps the caller's element type.
+function isArray(value: unknown): boolean {
+  return Array.isArray(value);
+}
+
+/** A list, possibly empty. */
+export function list<T>(field: string, value: readonly T[] | undefined | null): readonly T[] {
+  if (value === undefined || value === null || !isArray(value)) {
+    throw new InputError(field, 'non-empty', `${field} must be a list`);
+  }
+  return value;
+}

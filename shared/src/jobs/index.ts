@@ -1,1 +1,4 @@
 export * from './stages';
+export * from './ids';
+export * from './checklists';
+export * from './money';
