@@ -1,0 +1,103 @@
+import { fileURLToPath } from 'node:url';
+import react from '@vitejs/plugin-react';
+import { defineConfig } from 'vite';
+import { VitePWA } from 'vite-plugin-pwa';
+
+const sharedEntry = fileURLToPath(new URL('../shared/src/index.ts', import.meta.url));
+
+// Colours come from ../shared/design/look.md: `go` for the browser chrome, white behind the splash.
+const themeColour = '#00626B';
+const backgroundColour = '#FFFFFF';
+
+export default defineConfig({
+  plugins: [
+    react(),
+    VitePWA({
+      // A new version waits until the detailer taps "Reload": a half-updated shell could ask
+      // for chunks that no longer exist, in the middle of a job.
+      registerType: 'prompt',
+      injectRegister: false,
+      manifest: {
+        id: '/',
+        name: 'Panelpass',
+        short_name: 'Panelpass',
+        description: "The day's cars, panels and timers for a mobile detailer.",
+        lang: 'en',
+        start_url: '/',
+        scope: '/',
+        display: 'standalone',
+        orientation: 'portrait',
+        theme_color: themeColour,
+        background_color: backgroundColour,
+        icons: [
+          { src: '/icons/icon-192.png', sizes: '192x192', type: 'image/png', purpose: 'any' },
+          { src: '/icons/icon-512.png', sizes: '512x512', type: 'image/png', purpose: 'any' },
+          {
+            src: '/icons/maskable-512.png',
+            sizes: '512x512',
+            type: 'image/png',
+            purpose: 'maskable',
+          },
+        ],
+      },
+      workbox: {
+        // App shell, route chunks, styles, the bundled font (woff2 only: every browser we
+        // support reads it) and the icons. API answers are never cached here.
+        globPatterns: ['**/*.{html,js,css,woff2,png,svg,webmanifest}'],
+        navigateFallback: 'index.html',
+        navigateFallbackDenylist: [/^\/api(\/|$)/],
+        cleanupOutdatedCaches: true,
+        // Take control of the first page that installed us, so it works offline without a
+        // reload. Updates still wait (no skipWaiting) until the user accepts.
+        clientsClaim: true,
+        skipWaiting: false,
+      },
+    }),
+  ],
+  resolve: {
+    alias: { '@panelpass/shared': sharedEntry },
+    // @ionic/react-router carries its own nested copy of @ionic/react; two copies would mean
+    // two router contexts and twice the bytes.
+    dedupe: [
+      'react',
+      'react-dom',
+      'react-router',
+      'react-router-dom',
+      '@ionic/react',
+      '@ionic/core',
+      'ionicons',
+    ],
+  },
+  build: {
+    outDir: 'dist',
+    emptyOutDir: true,
+    // scripts/report-size.mjs reads this to measure the sign-in screen's JavaScript.
+    manifest: true,
+    target: 'es2022',
+    rolldownOptions: {
+      treeshake: {
+        // Ionic and Ionicons do not declare `sideEffects` in their package.json, so every
+        // component module they re-export would be kept (~300 kB gzipped). Their modules only
+        // define things when called (defineCustomElement), so keep just what we import.
+        moduleSideEffects: [
+          {
+            test: /[\\/]node_modules[\\/](@ionic[\\/](core|react|react-router)|ionicons)[\\/].*\.js$/,
+            sideEffects: false,
+          },
+        ],
+      },
+    },
+  },
+  server: {
+    host: '127.0.0.1',
+    proxy: {
+      '/api': { target: 'http://127.0.0.1:8080', changeOrigin: false },
+    },
+  },
+  preview: {
+    host: '127.0.0.1',
+    proxy: {
+      '/api': { target: 'http://127.0.0.1:8080', changeOrigin: false },
+    },
+  },
+});
