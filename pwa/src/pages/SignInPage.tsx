@@ -1,0 +1,34 @@
+import { IonContent, IonPage } from '@ionic/react';
+import { Link } from 'react-router-dom';
+import { BrandHeader } from '../components/BrandHeader';
+import { SignInForm } from '../features/auth/components/SignInForm';
+import { useSignIn } from '../features/auth/hooks/useSignIn';
+import { authErrorMessage } from '../features/auth/model/authMessages';
+import { startBusinessPath } from '../features/shell/model/access';
+
+export default function SignInPage() {
+  const signIn = useSignIn();
+  return (
+    <IonPage>
+      <IonContent>
+        <main className="pp-auth">
+          <BrandHeader
+            title="Sign in"
+            lead="Today's cars, panels and timers — with or without signal."
+          />
+          <SignInForm
+            onSubmit={(input) => signIn.start(input)}
+            pending={signIn.pending}
+            error={signIn.error ? authErrorMessage('sign-in', signIn.error) : null}
+          />
+          <p className="pp-auth__switch">
+            New to Panelpass?{' '}
+            <Link className="pp-link" to={startBusinessPath}>
+              Start a new business
+            </Link>
+          </p>
+        </main>
+      </IonContent>
+    </IonPage>
+  );
+}
