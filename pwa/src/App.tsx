@@ -1,0 +1,34 @@
+import { IonApp, IonRouterOutlet } from '@ionic/react';
+import { IonReactRouter } from '@ionic/react-router';
+import { Route } from 'react-router-dom';
+import { lazyPage } from './app/lazyPage';
+import { SessionRedirects } from './app/SessionRedirects';
+import { UpdateBanner } from './features/update/components/UpdateBanner';
+
+const SignInPage = lazyPage(() => import('./pages/SignInPage'));
+const StartBusinessPage = lazyPage(() => import('./pages/StartBusinessPage'));
+const InviteAcceptPage = lazyPage(() => import('./pages/InviteAcceptPage'));
+const CustomerHomePage = lazyPage(() => import('./pages/CustomerHomePage'));
+const MainTabs = lazyPage(() => import('./app/MainTabs'));
+
+/**
+ * The routes stay the same whoever is signed in; SessionRedirects moves people to the
+ * screens their session and role allow.
+ */
+export function App() {
+  return (
+    <IonApp>
+      <IonReactRouter>
+        <SessionRedirects />
+        <IonRouterOutlet>
+          <Route path="/sign-in" element={<SignInPage />} />
+          <Route path="/start" element={<StartBusinessPage />} />
+          <Route path="/invite/:token" element={<InviteAcceptPage />} />
+          <Route path="/customer" element={<CustomerHomePage />} />
+          <Route path="/*" element={<MainTabs />} />
+        </IonRouterOutlet>
+      </IonReactRouter>
+      <UpdateBanner />
+    </IonApp>
+  );
+}

@@ -1,0 +1,63 @@
+import { IonIcon, IonLabel, IonRouterOutlet, IonTabBar, IonTabButton, IonTabs } from '@ionic/react';
+import {
+  calendarClearOutline,
+  clipboardOutline,
+  fileTrayStackedOutline,
+  peopleOutline,
+  walletOutline,
+} from 'ionicons/icons';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { Route } from 'react-router-dom';
+import { useCurrentUser } from '../features/auth/hooks/useCurrentUser';
+import { tabsForRole, type TabId } from '../features/shell/model/access';
+import { lazyPage } from './lazyPage';
+import { queryClient } from './queryClient';
+
+const pages: Record<TabId, ReturnType<typeof lazyPage>> = {
+  today: lazyPage(() => import('../pages/TodayPage')),
+  jobs: lazyPage(() => import('../pages/JobsPage')),
+  clients: lazyPage(() => import('../pages/ClientsPage')),
+  shelf: lazyPage(() => import('../pages/ShelfPage')),
+  ledger: lazyPage(() => import('../pages/LedgerPage')),
+};
+
+const icons: Record<TabId, string> = {
+  today: calendarClearOutline,
+  jobs: clipboardOutline,
+  clients: peopleOutline,
+  shelf: fileTrayStackedOutline,
+  ledger: walletOutline,
+};
+
+/** The bottom tab bar and its pages, as the signed-in role may see them. */
+export default function MainTabs() {
+  return (
+    <QueryClientProvider client={queryClient}>
+      <SignedInTabs />
+    </QueryClientProvider>
+  );
+}
+
+function SignedInTabs() {
+  const user = useCurrentUser();
+  const visible = user ? tabsForRole(user.role) : [];
+
+  return (
+    <IonTabs>
+      <IonRouterOutlet>
+        {visible.map((tab) => {
+          const Page = pages[tab.id];
+          return <Route key={tab.id} path={`${tab.path}/*`} element={<Page />} />;
+        })}
+      </IonRouterOutlet>
+      <IonTabBar slot="bottom">
+        {visible.map((tab) => (
+          <IonTabButton key={tab.id} tab={tab.id} href={tab.path}>
+            <IonIcon icon={icons[tab.id]} aria-hidden="true" />
+            <IonLabel>{tab.label}</IonLabel>
+          </IonTabButton>
+        ))}
+      </IonTabBar>
+    </IonTabs>
+  );
+}

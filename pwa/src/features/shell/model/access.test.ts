@@ -1,0 +1,68 @@
+// @vitest-environment node
+import { describe, expect, it } from 'vitest';
+import { redirectFor, tabsForRole } from './access';
+
+describe('tabs per role', () => {
+  it('an owner sees all five tabs in order', () => {
+    expect(tabsForRole('owner').map((t) => t.label)).toEqual([
+      'Today',
+      'Jobs',
+      'Clients',
+      'Shelf',
+      'Ledger',
+    ]);
+  });
+
+  it('a tech sees no Ledger', () => {
+    expect(tabsForRole('tech').map((t) => t.id)).toEqual(['today', 'jobs', 'clients', 'shelf']);
+  });
+
+  it('a customer is not in the tab shell at all', () => {
+    expect(tabsForRole('customer')).toEqual([]);
+  });
+});
+
+describe('where a screen sends you', () => {
+  it('sends a tech away from the Ledger, and from anything under it', () => {
+    expect(redirectFor('/ledger', 'tech')).toBe('/today');
+    expect(redirectFor('/ledger/2026-11', 'tech')).toBe('/today');
+  });
+
+  it('lets an owner open the Ledger', () => {
+    expect(redirectFor('/ledger', 'owner')).toBeNull();
+  });
+
+  it('sends anyone signed out to the sign-in screen, except from the signed-out screens', () => {
+    expect(redirectFor('/today', null)).toBe('/sign-in');
+    expect(redirectFor('/', null)).toBe('/sign-in');
+    expect(redirectFor('/sign-in', null)).toBeNull();
+    expect(redirectFor('/start', null)).toBeNull();
+  });
+
+  it('takes a signed-in detailer from the sign-in screen and the root to Today', () => {
+    expect(redirectFor('/sign-in', 'owner')).toBe('/today');
+    expect(redirectFor('/start', 'tech')).toBe('/today');
+    expect(redirectFor('/', 'owner')).toBe('/today');
+    expect(redirectFor('/nowhere', 'tech')).toBe('/today');
+  });
+
+  it('keeps deeper pages of a visible tab', () => {
+    expect(redirectFor('/jobs/42', 'tech')).toBeNull();
+  });
+
+  it('does not mistake a look-alike path for a tab', () => {
+    expect(redirectFor('/ledgerish', 'owner')).toBe('/today');
+  });
+
+  it('keeps a customer on their own page', () => {
+    expect(redirectFor('/today', 'customer')).toBe('/customer');
+    expect(redirectFor('/ledger', 'customer')).toBe('/customer');
+    expect(redirectFor('/customer', 'customer')).toBeNull();
+  });
+
+  it('opens an invite link for everyone', () => {
+    expect(redirectFor('/invite/abc123', null)).toBeNull();
+    expect(redirectFor('/invite/abc123', 'owner')).toBeNull();
+    expect(redirectFor('/invite/', null)).toBe('/sign-in');
+  });
+});

@@ -1,0 +1,60 @@
+import type { Role } from '../../auth/model/session';
+
+export type TabId = 'today' | 'jobs' | 'clients' | 'shelf' | 'ledger';
+
+export interface TabDefinition {
+  id: TabId;
+  path: `/${TabId}`;
+  label: string;
+  /** Roles that see this tab and may open its pages. */
+  roles: readonly Role[];
+}
+
+const staff: readonly Role[] = ['owner', 'tech'];
+
+/** The bottom tab bar, left to right. */
+export const tabs: readonly TabDefinition[] = [
+  { id: 'today', path: '/today', label: 'Today', roles: staff },
+  { id: 'jobs', path: '/jobs', label: 'Jobs', roles: staff },
+  { id: 'clients', path: '/clients', label: 'Clients', roles: staff },
+  { id: 'shelf', path: '/shelf', label: 'Shelf', roles: staff },
+  // Money for the whole business: the owner's alone.
+  { id: 'ledger', path: '/ledger', label: 'Ledger', roles: ['owner'] },
+];
+
+export function tabsForRole(role: Role): TabDefinition[] {
+  return tabs.filter((tab) => tab.roles.includes(role));
+}
+
+export const signInPath = '/sign-in';
+export const startBusinessPath = '/start';
+export const customerHomePath = '/customer';
+
+/** Where each role lands after signing in. */
+export function homeFor(role: Role): string {
+  return role === 'customer' ? customerHomePath : '/today';
+}
+
+function within(pathname: string, base: string): boolean {
+  return pathname === base || pathname.startsWith(`${base}/`);
+}
+
+/** An invite link opens for anyone: the person holding it may be signed in as someone else. */
+function isInvite(pathname: string): boolean {
+  return /^\/invite\/[^/]+\/?$/.test(pathname);
+}
+
+/**
+ * Where to send someone who opens `pathname`, or null to let them stay. The one place that
+ * knows which screens need a session and which role may see which tab.
+ */
+export function redirectFor(pathname: string, role: Role | null): string | null {
+  if (isInvite(pathname)) return null;
+  const signedOutScreen = within(pathname, signInPath) || within(pathname, startBusinessPath);
+
+  if (role === null) return signedOutScreen ? null : signInPath;
+  if (role === 'customer') return within(pathname, customerHomePath) ? null : customerHomePath;
+
+  const allowed = tabsForRole(role).some((tab) => within(pathname, tab.path));
+  return allowed ? null : homeFor(role);
+}

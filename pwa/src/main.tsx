@@ -1,0 +1,37 @@
+import { setupIonicReact } from '@ionic/react';
+import { StrictMode } from 'react';
+import { createRoot } from 'react-dom/client';
+
+// Only the Ionic CSS the components need, not the optional utility sheets.
+import '@ionic/react/css/core.css';
+import '@ionic/react/css/normalize.css';
+import '@ionic/react/css/structure.css';
+import '@ionic/react/css/typography.css';
+// Atkinson Hyperlegible, bundled: regular and bold, Latin only.
+import '@fontsource/atkinson-hyperlegible/latin-400.css';
+import '@fontsource/atkinson-hyperlegible/latin-700.css';
+import './theme/variables.css';
+import './theme/app.css';
+
+import { App } from './App';
+import { sessionStore } from './app/services';
+import { redirectFor } from './features/shell/model/access';
+
+const reducedMotion = window.matchMedia('(prefers-reduced-motion: reduce)').matches;
+
+// One look on every phone (Material mode), no ripples, no page slides when motion is reduced.
+setupIonicReact({ mode: 'md', rippleEffect: false, animated: !reducedMotion });
+
+// Settle the first screen before anything renders: a signed-out visitor goes straight to
+// sign-in without loading the tab shell, a signed-in one skips the sign-in screen.
+const target = redirectFor(window.location.pathname, sessionStore.get()?.user.role ?? null);
+if (target !== null) window.history.replaceState(null, '', target);
+
+const root = document.getElementById('root');
+if (!root) throw new Error('index.html has no #root element');
+
+createRoot(root).render(
+  <StrictMode>
+    <App />
+  </StrictMode>,
+);
