@@ -5,3 +5,5 @@ export * from './climate';
 export * from './cure';
 export * from './dwell';
 export * from './film';
+export * from './gloss';
+export * from './panels';
