@@ -3,6 +3,10 @@ import { ConfigModule, ConfigService } from '@nestjs/config';
 import { APP_FILTER, APP_GUARD, APP_PIPE } from '@nestjs/core';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { AuthModule } from './auth/auth.module';
+import { CommandsModule } from './commands/commands.module';
+import { CustomersModule } from './customers/customers.module';
+import { JobsModule } from './jobs/jobs.module';
+import { VehiclesModule } from './vehicles/vehicles.module';
 import { JwtAuthGuard } from './auth/jwt-auth.guard';
 import { RolesGuard } from './auth/roles.guard';
 import { AllExceptionsFilter } from './common/all-exceptions.filter';
@@ -20,8 +24,12 @@ import { InvitesModule } from './invites/invites.module';
       useFactory: (config: ConfigService<EnvironmentVariables, true>) =>
         dataSourceOptions(config.get('DATABASE_URL', { infer: true })),
     }),
+    CommandsModule,
     AuthModule,
     InvitesModule,
+    CustomersModule,
+    VehiclesModule,
+    JobsModule,
     HealthModule,
   ],
   providers: [

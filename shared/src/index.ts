@@ -7,3 +7,4 @@ export * from './dwell';
 export * from './film';
 export * from './gloss';
 export * from './panels';
+export * from './jobs';

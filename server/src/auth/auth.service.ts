@@ -140,6 +140,7 @@ export class AuthService {
   ): Promise<SessionDto> {
     const ttl = this.config.get('ACCESS_TOKEN_TTL_SECONDS', { infer: true });
     const payload: AccessTokenPayload = { sub: user.id, bid: user.businessId, role: user.role };
+    if (user.role === 'customer' && user.customerId) payload.cid = user.customerId;
     const accessToken = await this.jwt.signAsync(payload, { expiresIn: ttl, algorithm: 'HS256' });
     const id = randomUUID();
     const secret = randomBytes(32).toString('base64url');

@@ -7,6 +7,8 @@ export interface Actor {
   userId: string;
   businessId: string;
   role: Role;
+  /** For the `customer` role: the customer record they are. */
+  customerId?: string;
 }
 
 export const CurrentUser = createParamDecorator((_: unknown, ctx: ExecutionContext): Actor => {

@@ -10,6 +10,8 @@ export interface AccessTokenPayload {
   sub: string;
   bid: string;
   role: Role;
+  /** customer id, for the `customer` role only */
+  cid?: string;
 }
 
 /** Verifies the access token: HS256 only (an `alg: none` or foreign-key token is refused). */
@@ -27,6 +29,12 @@ export class JwtStrategy extends PassportStrategy(Strategy) {
   validate(payload: Partial<AccessTokenPayload>): Actor | false {
     if (!payload.sub || !payload.bid || !payload.role || !ROLES.includes(payload.role))
       return false;
-    return { userId: payload.sub, businessId: payload.bid, role: payload.role };
+    if (payload.role === 'customer' && !payload.cid) return false;
+    return {
+      userId: payload.sub,
+      businessId: payload.bid,
+      role: payload.role,
+      ...(payload.cid ? { customerId: payload.cid } : {}),
+    };
   }
 }

@@ -27,8 +27,13 @@ export class JobPanel extends SyncedEntity {
   @Column({ type: 'integer' })
   position: number;
 
+  /** What the panel is made of (steel, aluminium, plastic, composite): decides which gauge reads it. */
   @Column({ type: 'text' })
   substrate: string;
+
+  /** What is on top: clear-coat, single-stage, gloss-black-trim, vinyl, chrome, textured-plastic. */
+  @Column({ type: 'text', default: 'clear-coat' })
+  finish: string;
 
   @Column({ type: 'text', nullable: true })
   hardness: string | null;

@@ -1,0 +1,95 @@
+import { HttpStatus, Injectable } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { plainToInstance } from 'class-transformer';
+import { validate, ValidationError } from 'class-validator';
+import { DataSource, EntityManager } from 'typeorm';
+import { AuditEntry } from '../audit/audit-entry.entity';
+import type { Actor } from '../auth/current-user.decorator';
+import { AppException } from '../common/app.exception';
+import type { CommandDef } from './command.types';
+
+function flatten(
+  errors: ValidationError[],
+  prefix = '',
+): { field: string; rules: Record<string, string> }[] {
+  return errors.flatMap((e) => {
+    const field = prefix ? `${prefix}.${e.property}` : e.property;
+    const own = e.constraints ? [{ field, rules: e.constraints }] : [];
+    return [...own, ...flatten(e.children ?? [], field)];
+  });
+}
+
+const isObject = (v: unknown): v is Record<string, unknown> =>
+  typeof v === 'object' && v !== null && !Array.isArray(v);
+
+@Injectable()
+export class CommandBus {
+  private readonly defs = new Map<string, CommandDef<object, unknown>>();
+
+  constructor(@InjectDataSource() private readonly db: DataSource) {}
+
+  register(...defs: CommandDef<object, unknown>[]): void {
+    for (const def of defs) {
+      if (this.defs.has(def.name)) throw new Error(`Command ${def.name} is registered twice`);
+      this.defs.set(def.name, def);
+    }
+  }
+
+  names(): string[] {
+    return [...this.defs.keys()].sort();
+  }
+
+  /** Runs one command in a transaction of its own. */
+  execute<R = unknown>(actor: Actor, name: string, rawArgs: unknown, via = 'rest'): Promise<R> {
+    return this.db.transaction((m) => this.executeIn<R>(m, actor, name, rawArgs, via));
+  }
+
+  /** Runs one command inside the caller's transaction (the sync push uses this). */
+  async executeIn<R = unknown>(
+    m: EntityManager,
+    actor: Actor,
+    name: string,
+    rawArgs: unknown,
+    via = 'rest',
+  ): Promise<R> {
+    const def = this.defs.get(name);
+    if (!def)
+      throw new AppException(
+        HttpStatus.BAD_REQUEST,
+        'unknown-command',
+        `There is no change called "${name}"`,
+      );
+    if (!def.roles.includes(actor.role)) {
+      throw new AppException(HttpStatus.FORBIDDEN, 'forbidden', 'Your role may not do this');
+    }
+    if (!isObject(rawArgs)) {
+      throw new AppException(
+        HttpStatus.BAD_REQUEST,
+        'validation-failed',
+        'The change has no arguments',
+      );
+    }
+    const args = plainToInstance(def.args, rawArgs);
+    const errors = await validate(args, { whitelist: true, forbidNonWhitelisted: true });
+    if (errors.length) {
+      const details = flatten(errors);
+      throw new AppException(
+        HttpStatus.BAD_REQUEST,
+        'validation-failed',
+        details.flatMap((d) => Object.values(d.rules)).join('; '),
+        details,
+      );
+    }
+    const result = await def.run({ actor, m, via }, args);
+    const subjectId = typeof rawArgs.id === 'string' ? rawArgs.id : null;
+    await m.save(AuditEntry, {
+      businessId: actor.businessId,
+      userId: actor.userId,
+      command: name,
+      subjectId: subjectId && /^[0-9a-f-]{36}$/i.test(subjectId) ? subjectId : null,
+      args: rawArgs,
+      via,
+    });
+    return result as R;
+  }
+}

@@ -1,0 +1,27 @@
+import type { ClassConstructor } from 'class-transformer';
+import type { EntityManager } from 'typeorm';
+import type { Actor } from '../auth/current-user.decorator';
+import type { Role } from '../users/user.entity';
+
+/** What a command runs with: who asks, the transaction it writes in, and where it came from. */
+export interface CommandContext {
+  actor: Actor;
+  m: EntityManager;
+  /** `rest`, or the id of the syncing client. */
+  via: string;
+}
+
+/**
+ * A named domain change (`job.setStage`, `pass.log`…). REST controllers and the sync push
+ * both run commands through the CommandBus, so each change is written once.
+ */
+export interface CommandDef<A extends object = object, R = unknown> {
+  name: string;
+  args: ClassConstructor<A>;
+  roles: readonly Role[];
+  run(ctx: CommandContext, args: A): Promise<R>;
+}
+
+export function command<A extends object, R>(def: CommandDef<A, R>): CommandDef<A, R> {
+  return def;
+}

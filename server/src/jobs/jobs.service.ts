@@ -1,0 +1,299 @@
+import { HttpStatus, Injectable, OnModuleInit } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import {
+  allowedNextStages,
+  amountDueMinor,
+  canMoveStage,
+  childId,
+  DEFAULT_CHECKLIST,
+  bodyStyleTemplate,
+  type BodyStyle,
+} from '@panelpass/shared';
+import { Brackets, DataSource, EntityManager, In } from 'typeorm';
+import type { Actor } from '../auth/current-user.decorator';
+import { CommandBus } from '../commands/command-bus.service';
+import { command, type CommandContext } from '../commands/command.types';
+import { AppException } from '../common/app.exception';
+import { likePattern, type Page } from '../common/dto/page.dto';
+import { alreadyCreated, checkVersion, findInBusiness, jobInScope } from '../common/scope';
+import { Customer } from '../customers/customer.entity';
+import { ChecklistItem } from '../checklist/checklist-item.entity';
+import { JobPanel } from '../panels/job-panel.entity';
+import { Payment } from '../payments/payment.entity';
+import { User } from '../users/user.entity';
+import { Vehicle } from '../vehicles/vehicle.entity';
+import {
+  AssignJobDto,
+  CreateJobDto,
+  JobQueryDto,
+  RemoveJobDto,
+  SetStageDto,
+  UpdateJobDto,
+} from './dto/job.dto';
+import { Job } from './job.entity';
+
+/** Fields a helper may change on a job assigned to them. */
+const TECH_EDITABLE = new Set(['conditionNotes', 'notes', 'expectedVersion', 'id']);
+
+export interface JobSummary extends Omit<Job, 'priceMinor'> {
+  /** Absent for a helper: they see what is due, not the price. */
+  priceMinor?: number;
+  amountDueMinor: number;
+  customerName: string;
+  vehicleLabel: string;
+}
+
+@Injectable()
+export class JobsService implements OnModuleInit {
+  constructor(
+    @InjectDataSource() private readonly db: DataSource,
+    private readonly bus: CommandBus,
+  ) {}
+
+  onModuleInit(): void {
+    this.bus.register(
+      command({
+        name: 'job.create',
+        args: CreateJobDto,
+        roles: ['owner'],
+        run: (c, a) => this.create(c, a),
+      }),
+      command({
+        name: 'job.update',
+        args: UpdateJobDto,
+        roles: ['owner', 'tech'],
+        run: (c, a) => this.update(c, a),
+      }),
+      command({
+        name: 'job.setStage',
+        args: SetStageDto,
+        roles: ['owner', 'tech'],
+        run: (c, a) => this.setStage(c, a),
+      }),
+      command({
+        name: 'job.assign',
+        args: AssignJobDto,
+        roles: ['owner'],
+        run: (c, a) => this.assign(c, a),
+      }),
+      command({
+        name: 'job.remove',
+        args: RemoveJobDto,
+        roles: ['owner'],
+        run: (c, a) => this.remove(c, a),
+      }),
+    );
+  }
+
+  /** A new visit, with its panels from the body-style template and the default checklist. */
+  async create({ actor, m }: CommandContext, a: CreateJobDto): Promise<Job> {
+    const existing = await alreadyCreated(m, Job, actor, a.id);
+    if (existing) return existing;
+    checkWindow(a.windowStart, a.windowEnd);
+    const customer = await findInBusiness(m, Customer, actor, a.customerId, 'Customer');
+    const vehicle = await findInBusiness(m, Vehicle, actor, a.vehicleId, 'Vehicle');
+    if (vehicle.customerId !== customer.id) {
+      throw new AppException(
+        HttpStatus.BAD_REQUEST,
+        'vehicle-not-of-customer',
+        "That vehicle is not this customer's",
+      );
+    }
+    if (a.assignedTechId) await this.checkTech(m, actor, a.assignedTechId);
+    await m.insert(Job, {
+      ...a,
+      businessId: actor.businessId,
+      address: a.address ?? customer.address,
+      lat: a.lat ?? customer.lat,
+      lng: a.lng ?? customer.lng,
+      stage: 'booked',
+    });
+    const panels = bodyStyleTemplate(vehicle.bodyStyle as BodyStyle).map((p, position) => ({
+      id: childId(a.id, `panel:${p.id}`),
+      businessId: actor.businessId,
+      jobId: a.id,
+      panelKey: p.id,
+      label: p.label,
+      band: p.band,
+      position,
+      substrate: p.substrate,
+      areaM2: p.areaM2,
+    }));
+    if (panels.length) await m.insert(JobPanel, panels);
+    await m.insert(
+      ChecklistItem,
+      DEFAULT_CHECKLIST.map((c, position) => ({
+        id: childId(a.id, `check:${c.key}`),
+        businessId: actor.businessId,
+        jobId: a.id,
+        stage: c.stage,
+        key: c.key,
+        label: c.label,
+        position,
+      })),
+    );
+    return m.findOneByOrFail(Job, { id: a.id });
+  }
+
+  async update(
+    { actor, m }: CommandContext,
+    { id, expectedVersion, ...fields }: UpdateJobDto,
+  ): Promise<Job> {
+    const job = await jobInScope(m, actor, id);
+    if (actor.role === 'tech') {
+      const refused = Object.keys(fields).filter((k) => !TECH_EDITABLE.has(k));
+      if (refused.length) {
+        throw new AppException(
+          HttpStatus.FORBIDDEN,
+          'forbidden',
+          `A helper may not change ${refused.join(', ')}`,
+        );
+      }
+    }
+    checkVersion(job, expectedVersion, 'job');
+    if (job.stage === 'closed') {
+      throw new AppException(
+        HttpStatus.CONFLICT,
+        'job-closed',
+        'This job is closed; it cannot be changed',
+      );
+    }
+    checkWindow(fields.windowStart ?? job.windowStart, fields.windowEnd ?? job.windowEnd);
+    if (Object.keys(fields).length) await m.update(Job, { id }, fields);
+    return m.findOneByOrFail(Job, { id });
+  }
+
+  /** Moves the job along its stages; a move the table does not allow is a 409 naming the allowed ones. */
+  async setStage(
+    { actor, m }: CommandContext,
+    { id, stage, expectedVersion }: SetStageDto,
+  ): Promise<Job> {
+    const job = await jobInScope(m, actor, id);
+    checkVersion(job, expectedVersion, 'job');
+    if (job.stage === stage) return job;
+    if (!canMoveStage(job.stage, stage)) {
+      const allowed = allowedNextStages(job.stage);
+      throw new AppException(
+        HttpStatus.CONFLICT,
+        'stage-not-allowed',
+        allowed.length
+          ? `A job at ${job.stage} can move to ${allowed.join(' or ')}, not ${stage}`
+          : `A ${job.stage} job cannot change stage`,
+        { from: job.stage, to: stage, allowed },
+      );
+    }
+    await m.update(Job, { id }, { stage });
+    return m.findOneByOrFail(Job, { id });
+  }
+
+  async assign({ actor, m }: CommandContext, { id, techId }: AssignJobDto): Promise<Job> {
+    const job = await jobInScope(m, actor, id);
+    if (techId) await this.checkTech(m, actor, techId);
+    await m.update(Job, { id: job.id }, { assignedTechId: techId });
+    return m.findOneByOrFail(Job, { id });
+  }
+
+  async remove({ actor, m }: CommandContext, { id, expectedVersion }: RemoveJobDto): Promise<void> {
+    const job = await jobInScope(m, actor, id);
+    checkVersion(job, expectedVersion, 'job');
+    await m.softDelete(Job, { id });
+  }
+
+  async list(actor: Actor, query: JobQueryDto): Promise<Page<JobSummary>> {
+    const limit = query.limit ?? 50;
+    const offset = query.offset ?? 0;
+    const qb = this.db
+      .getRepository(Job)
+      .createQueryBuilder('j')
+      .innerJoin(Customer, 'c', 'c.id = j.customer_id')
+      .where('j.business_id = :b', { b: actor.businessId })
+      .orderBy('j.windowStart', 'ASC')
+      .addOrderBy('j.id', 'ASC')
+      .take(limit)
+      .skip(offset);
+    if (actor.role === 'tech') qb.andWhere('j.assigned_tech_id = :u', { u: actor.userId });
+    if (actor.role === 'customer') qb.andWhere('j.customer_id = :cid', { cid: actor.customerId });
+    if (query.stage) qb.andWhere('j.stage = :stage', { stage: query.stage });
+    if (query.from) qb.andWhere('j.window_end >= :from', { from: query.from });
+    if (query.to) qb.andWhere('j.window_start < :to', { to: query.to });
+    if (query.q) {
+      const q = likePattern(query.q);
+      qb.innerJoin(Vehicle, 'v', 'v.id = j.vehicle_id').andWhere(
+        new Brackets((w) =>
+          w
+            .where('c.name ILIKE :q', { q })
+            .orWhere('j.address ILIKE :q', { q })
+            .orWhere("concat_ws(' ', v.make, v.model, v.colour, v.plate) ILIKE :q", { q }),
+        ),
+      );
+    }
+    const [jobs, total] = await qb.getManyAndCount();
+    return { items: await this.summarize(this.db.manager, actor, jobs), total, limit, offset };
+  }
+
+  async get(actor: Actor, id: string): Promise<JobSummary> {
+    const job = await jobInScope(this.db.manager, actor, id);
+    const [summary] = await this.summarize(this.db.manager, actor, [job]);
+    return summary!;
+  }
+
+  /** Adds names and the amount due; strips the price for a helper. */
+  async summarize(m: EntityManager, actor: Actor, jobs: Job[]): Promise<JobSummary[]> {
+    if (!jobs.length) return [];
+    const ids = jobs.map((j) => j.id);
+    const [customers, vehicles, payments] = await Promise.all([
+      m.find(Customer, { where: { id: In(jobs.map((j) => j.customerId)) }, withDeleted: true }),
+      m.find(Vehicle, { where: { id: In(jobs.map((j) => j.vehicleId)) }, withDeleted: true }),
+      m.find(Payment, { where: { jobId: In(ids) } }),
+    ]);
+    const customerName = new Map(customers.map((c) => [c.id, c.name]));
+    const vehicleLabel = new Map(
+      vehicles.map((v) => [
+        v.id,
+        [v.colour, v.make, v.model].filter(Boolean).join(' ') || v.bodyStyle,
+      ]),
+    );
+    return jobs.map((job) => {
+      const own = payments.filter((p) => p.jobId === job.id);
+      const { priceMinor, ...rest } = job;
+      return {
+        ...rest,
+        ...(actor.role === 'tech' ? {} : { priceMinor }),
+        amountDueMinor: amountDueMinor(
+          priceMinor,
+          own.map((p) => ({
+            kind: p.kind as 'deposit' | 'balance' | 'refund',
+            status: p.status,
+            amountMinor: p.amountMinor,
+          })),
+        ),
+        customerName: customerName.get(job.customerId) ?? '',
+        vehicleLabel: vehicleLabel.get(job.vehicleId) ?? '',
+      };
+    });
+  }
+
+  private async checkTech(m: EntityManager, actor: Actor, techId: string): Promise<void> {
+    const tech = await m.findOne(User, {
+      where: { id: techId, businessId: actor.businessId, role: 'tech' },
+    });
+    if (!tech || tech.deletedAt) {
+      throw new AppException(
+        HttpStatus.BAD_REQUEST,
+        'not-a-helper',
+        'Assign the job to a helper of this business',
+      );
+    }
+  }
+}
+
+function checkWindow(start: Date, end: Date): void {
+  if (end.getTime() <= start.getTime()) {
+    throw new AppException(
+      HttpStatus.BAD_REQUEST,
+      'validation-failed',
+      'windowEnd must be after windowStart',
+      [{ field: 'windowEnd', rules: { afterStart: 'windowEnd must be after windowStart' } }],
+    );
+  }
+}
