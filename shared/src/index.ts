@@ -7,4 +7,4 @@ export * from './dwell';
 export * from './film';
 export * from './gloss';
 export * from './panels';
-export * from './jobs';
+export * from './pricing';

@@ -1,0 +1,4 @@
+export * from './exact';
+export * from './money';
+export * from './quote';
+export * from './labour';
