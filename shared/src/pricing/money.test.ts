@@ -47,7 +47,7 @@ describe('sales tax rounding (US Streamlined Sales Tax Agreement §324, e.g. RCW
           const exact = new Decimal(cents).mul(rate).div(100);
           // decimal.js keeps a negative zero; money has none (−0 + 0 is 0).
           expect(taxMinor(cents, rate)).toBe(
-            exact.toDecimalPlaces(0, Decimal.ROUND_HALF_UP).toNumber(),
+            exact.toDecimalPlaces(0, Decimal.ROUND_HALF_UP).toNumber() + 0,
           );
           expect(taxMinor(cents, rate, 'half-even')).toBe(
             exact.toDecimalPlaces(0, Decimal.ROUND_HALF_EVEN).toNumber() + 0,
