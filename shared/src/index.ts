@@ -8,3 +8,6 @@ export * from './film';
 export * from './gloss';
 export * from './panels';
 export * from './pricing';
+export * from './dilution';
+export * from './jobs'; // stages, child ids, checklists, amount due (keep: used by server and pwa)
+export * from './records';
