@@ -17,6 +17,8 @@ export default defineConfig({
       // for chunks that no longer exist, in the middle of a job.
       registerType: 'prompt',
       injectRegister: false,
+      // The icons are precached by the glob below already; listing them twice is noise.
+      includeManifestIcons: false,
       manifest: {
         id: '/',
         name: 'Panelpass',
@@ -42,8 +44,9 @@ export default defineConfig({
       },
       workbox: {
         // App shell, route chunks, styles, the bundled font (woff2 only: every browser we
-        // support reads it) and the icons. API answers are never cached here.
-        globPatterns: ['**/*.{html,js,css,woff2,png,svg,webmanifest}'],
+        // support reads it) and the icons; the plugin adds the web manifest itself. API
+        // answers are never cached here.
+        globPatterns: ['**/*.{html,js,css,woff2,png,svg}'],
         navigateFallback: 'index.html',
         navigateFallbackDenylist: [/^\/api(\/|$)/],
         cleanupOutdatedCaches: true,
