@@ -35,7 +35,14 @@ export function useAppUpdate(): AppUpdate {
 
   return {
     ready,
-    reload: () => void updateServiceWorker(true),
+    reload: () => {
+      // The plugin reloads only for a worker it saw registered itself; one found later by
+      // an update check counts as "external" and would take over without a reload.
+      navigator.serviceWorker.addEventListener('controllerchange', () => window.location.reload(), {
+        once: true,
+      });
+      void updateServiceWorker(true);
+    },
     later: () => setReady(false),
   };
 }
