@@ -1,4 +1,4 @@
-import { IonContent, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
+import { IonContent, IonHeader, IonPage, IonToolbar } from '@ionic/react';
 import { EmptyState } from '../components/EmptyState';
 import { useSession } from '../features/auth/hooks/useSession';
 import { SignOutButton } from '../features/shell/components/SignOutButton';
@@ -11,9 +11,9 @@ export default function CustomerHomePage() {
     <IonPage>
       <IonHeader>
         <IonToolbar>
-          <IonTitle>
-            <h1 className="pp-page-title">Panelpass</h1>
-          </IonTitle>
+          <div className="pp-header">
+            <h1 className="pp-header__title">Panelpass</h1>
+          </div>
         </IonToolbar>
       </IonHeader>
       <IonContent>

@@ -1,21 +1,25 @@
-import { IonButtons, IonContent, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
+import { IonContent, IonHeader, IonPage, IonToolbar } from '@ionic/react';
 import type { ReactNode } from 'react';
 import { SignOutButton } from './SignOutButton';
 import { SyncBadge } from './SyncBadge';
 
-/** One tab's page: its title, the sync badge and sign-out in the header, the work below. */
+/**
+ * One tab's page: its title, the sync badge and sign-out in the header, the work below. The
+ * header is our own wrapping row rather than IonTitle/IonButtons, so with large system text
+ * the title moves above the badge instead of being squeezed out.
+ */
 export function TabPage({ title, children }: { title: string; children: ReactNode }) {
   return (
     <IonPage>
       <IonHeader>
         <IonToolbar>
-          <IonTitle>
-            <h1 className="pp-page-title">{title}</h1>
-          </IonTitle>
-          <IonButtons slot="end">
-            <SyncBadge />
-            <SignOutButton />
-          </IonButtons>
+          <div className="pp-header">
+            <h1 className="pp-header__title">{title}</h1>
+            <div className="pp-header__tools">
+              <SyncBadge />
+              <SignOutButton />
+            </div>
+          </div>
         </IonToolbar>
       </IonHeader>
       <IonContent>
