@@ -1,6 +1,7 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
+  assertAppIsServed,
   baseUrl,
   collectPageErrors,
   launchChromium,
@@ -16,6 +17,7 @@ describe('the app shell offline', () => {
   let pageErrors: string[];
 
   beforeAll(async () => {
+    await assertAppIsServed();
     browser = await launchChromium();
     context = await newPhoneContext(browser);
     page = await context.newPage();

@@ -25,5 +25,5 @@ export async function signIn(page: Page, { email, password }: Credentials): Prom
 
 /** The Today page as the tab shell shows it: its heading in the header. */
 export function todayTab(page: Page) {
-  return page.getByRole('heading', { level: 1, name: 'Today' });
+  return page.getByRole('heading', { level: 1, name: 'Today', exact: true });
 }
