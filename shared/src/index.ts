@@ -9,3 +9,5 @@ export * from './gloss';
 export * from './panels';
 export * from './pricing';
 export * from './dilution';
+export * from './jobs'; // stages, child ids, checklists, amount due (keep: used by server and pwa)
+export * from './records';
