@@ -23,7 +23,7 @@ export default tseslint.config(
     languageOptions: {
       parserOptions: {
         projectService: {
-          allowDefaultProject: ['*.mjs'],
+          allowDefaultProject: ['*.mjs', 'shared/vitest.config.ts'],
         },
         tsconfigRootDir: import.meta.dirname,
       },

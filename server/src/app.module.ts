@@ -15,6 +15,7 @@ import { type EnvironmentVariables, validateEnv } from './config/env.validation'
 import { dataSourceOptions } from './database/data-source';
 import { HealthModule } from './health/health.module';
 import { InvitesModule } from './invites/invites.module';
+import { SyncModule } from './sync/sync.module';
 
 @Module({
   imports: [
@@ -30,6 +31,7 @@ import { InvitesModule } from './invites/invites.module';
     CustomersModule,
     VehiclesModule,
     JobsModule,
+    SyncModule,
     HealthModule,
   ],
   providers: [

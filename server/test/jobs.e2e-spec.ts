@@ -1,6 +1,7 @@
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { bodyStyleTemplate, childId } from '@panelpass/shared';
 import { randomUUID } from 'node:crypto';
+import { DataSource } from 'typeorm';
 import { makeJob } from './factories/records';
 import { addTech, createTestApp, http, type Session, signUpOwner } from './support/app';
 
@@ -22,7 +23,7 @@ describe('customers, vehicles and jobs', () => {
 
   it("a new job gets its vehicle's panels top-down, with ids both sides can compute", async () => {
     const { jobId } = await makeJob(app, owner, { bodyStyle: 'pickup' });
-    const ds = app.get(require('typeorm').DataSource);
+    const ds = app.get(DataSource);
     const panels: { id: string; panel_key: string; position: number }[] = await ds.query(
       'SELECT id, panel_key, position FROM job_panels WHERE job_id = $1 ORDER BY position',
       [jobId],
@@ -165,7 +166,7 @@ describe('customers, vehicles and jobs', () => {
 
   it('writes an audit entry for each change, naming who made it', async () => {
     const { jobId } = await makeJob(app, owner);
-    const ds = app.get(require('typeorm').DataSource);
+    const ds = app.get(DataSource);
     const rows: { command: string; user_id: string }[] = await ds.query(
       'SELECT command, user_id FROM audit_entries WHERE subject_id = $1',
       [jobId],

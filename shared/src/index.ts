@@ -11,3 +11,4 @@ export * from './pricing';
 export * from './dilution';
 export * from './jobs'; // stages, child ids, checklists, amount due (keep: used by server and pwa)
 export * from './records';
+export * from './sync'; // the device ↔ server protocol (keep)

@@ -5,6 +5,7 @@ import {
   PrimaryGeneratedColumn,
   UpdateDateColumn,
 } from 'typeorm';
+import type { JsonObject } from '../database/synced.entity';
 
 /** One detailing business; every other record carries its id. */
 @Entity('businesses')
@@ -17,7 +18,7 @@ export class Business {
 
   /** Prices, factors, tax, travel bands, units and default waits (see settings.dto.ts). */
   @Column({ type: 'jsonb', default: () => "'{}'" })
-  settings: Record<string, unknown>;
+  settings: JsonObject;
 
   /** IANA time zone the business works in (for "today" and reminders). */
   @Column({ type: 'text', default: 'UTC' })

@@ -22,6 +22,15 @@ function flatten(
 const isObject = (v: unknown): v is Record<string, unknown> =>
   typeof v === 'object' && v !== null && !Array.isArray(v);
 
+/**
+ * Serialises the writes of one business until the transaction ends. Versions come from one
+ * sequence; without this, a transaction that took version 100 could commit after one that
+ * took 101, and a pull in between would move its cursor past 100 and never see it.
+ */
+export async function lockBusinessWrites(m: EntityManager, businessId: string): Promise<void> {
+  await m.query('SELECT pg_advisory_xact_lock(hashtextextended($1, 0))', [businessId]);
+}
+
 @Injectable()
 export class CommandBus {
   private readonly defs = new Map<string, CommandDef<object, unknown>>();
@@ -80,6 +89,7 @@ export class CommandBus {
         details,
       );
     }
+    await lockBusinessWrites(m, actor.businessId);
     const result = await def.run({ actor, m, via }, args);
     const subjectId = typeof rawArgs.id === 'string' ? rawArgs.id : null;
     await m.save(AuditEntry, {

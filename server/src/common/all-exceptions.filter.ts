@@ -8,6 +8,7 @@ import {
 } from '@nestjs/common';
 import type { Response } from 'express';
 import { QueryFailedError } from 'typeorm';
+import { InputError } from '@panelpass/shared';
 import type { ErrorBody } from './app.exception';
 
 const codeForStatus: Record<number, string> = {
@@ -29,7 +30,7 @@ export class AllExceptionsFilter implements ExceptionFilter {
 
   catch(exception: unknown, host: ArgumentsHost): void {
     const res = host.switchToHttp().getResponse<Response>();
-    const body = this.toBody(exception);
+    const body = toErrorBody(exception);
     if (body.statusCode >= 500) {
       this.logger.error(
         exception instanceof Error ? (exception.stack ?? exception.message) : String(exception),
@@ -37,45 +38,61 @@ export class AllExceptionsFilter implements ExceptionFilter {
     }
     res.status(body.statusCode).json(body);
   }
-
-  private toBody(exception: unknown): ErrorBody {
-    if (exception instanceof HttpException) {
-      const status = exception.getStatus();
-      const response = exception.getResponse();
-      if (typeof response === 'object' && response !== null && 'code' in response) {
-        return response as ErrorBody;
-      }
-      const raw =
-        typeof response === 'string' ? response : (response as { message?: unknown }).message;
-      const message = Array.isArray(raw)
-        ? raw.map(String).join('; ')
-        : typeof raw === 'string'
-          ? raw
-          : exception.message;
-      return { statusCode: status, code: codeForStatus[status] ?? 'error', message };
-    }
-    if (exception instanceof QueryFailedError) {
-      const pgCode = (exception.driverError as { code?: string } | undefined)?.code;
-      if (pgCode === '23505') {
-        return { statusCode: 409, code: 'conflict', message: 'That record already exists' };
-      }
-      if (pgCode === '22P02' || pgCode === '22003' || pgCode === '23514') {
-        return { statusCode: 400, code: 'bad-request', message: 'A value is not valid' };
-      }
-    }
-    if (isDatabaseDown(exception)) {
-      return {
-        statusCode: HttpStatus.SERVICE_UNAVAILABLE,
-        code: 'database-unavailable',
-        message:
-          'The database is not reachable right now; your changes are kept on the device. Try again shortly.',
-      };
-    }
-    return { statusCode: 500, code: 'internal', message: 'Something went wrong on the server' };
-  }
 }
 
 function isDatabaseDown(e: unknown): boolean {
   const code = (e as { code?: string } | null)?.code;
   return code === 'ECONNREFUSED' || code === '57P01' || code === '57P03' || code === 'ECONNRESET';
+}
+
+/** The one error shape for any error; also used by the sync push to record refusals. */
+export function toErrorBody(exception: unknown): ErrorBody {
+  if (exception instanceof HttpException) {
+    const status = exception.getStatus();
+    const response = exception.getResponse();
+    if (typeof response === 'object' && response !== null && 'code' in response) {
+      return response as ErrorBody;
+    }
+    const raw =
+      typeof response === 'string' ? response : (response as { message?: unknown }).message;
+    const message = Array.isArray(raw)
+      ? raw.map(String).join('; ')
+      : typeof raw === 'string'
+        ? raw
+        : exception.message;
+    return { statusCode: status, code: codeForStatus[status] ?? 'error', message };
+  }
+  if (exception instanceof InputError) {
+    return {
+      statusCode: 400,
+      code: 'validation-failed',
+      message: exception.message,
+      details: [{ field: exception.field, rules: { [exception.rule]: exception.message } }],
+    };
+  }
+  if (exception instanceof QueryFailedError) {
+    const pgCode = (exception.driverError as { code?: string } | undefined)?.code;
+    if (pgCode === '23505') {
+      return { statusCode: 409, code: 'conflict', message: 'That record already exists' };
+    }
+    if (pgCode === '23503') {
+      return {
+        statusCode: 400,
+        code: 'reference-missing',
+        message: 'A record this refers to does not exist',
+      };
+    }
+    if (pgCode === '22P02' || pgCode === '22003' || pgCode === '23514') {
+      return { statusCode: 400, code: 'bad-request', message: 'A value is not valid' };
+    }
+  }
+  if (isDatabaseDown(exception)) {
+    return {
+      statusCode: HttpStatus.SERVICE_UNAVAILABLE,
+      code: 'database-unavailable',
+      message:
+        'The database is not reachable right now; your changes are kept on the device. Try again shortly.',
+    };
+  }
+  return { statusCode: 500, code: 'internal', message: 'Something went wrong on the server' };
 }

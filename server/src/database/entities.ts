@@ -24,6 +24,8 @@ import { FilmReading } from '../readings/film-reading.entity';
 import { Signature } from '../signatures/signature.entity';
 import { SolventApplication } from '../solvents/solvent-application.entity';
 import { Timer } from '../timers/timer.entity';
+import { SyncClient } from '../sync/sync-client.entity';
+import { SyncRejection } from '../sync/sync-rejection.entity';
 import { User } from '../users/user.entity';
 import { Vehicle } from '../vehicles/vehicle.entity';
 
@@ -55,6 +57,8 @@ export const entities = [
   Signature,
   SolventApplication,
   Timer,
+  SyncClient,
+  SyncRejection,
   User,
   Vehicle,
 ];

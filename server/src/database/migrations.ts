@@ -1,5 +1,10 @@
 import { Foundation1764600000000 } from './migrations/1764600000000-Foundation';
 import { BusinessRecords1764600001000 } from './migrations/1764600001000-BusinessRecords';
+import { Sync1764600002000 } from './migrations/1764600002000-Sync';
 
 /** Every migration in order. Append only; never edit one that has landed. */
-export const migrations = [Foundation1764600000000, BusinessRecords1764600001000];
+export const migrations = [
+  Foundation1764600000000,
+  BusinessRecords1764600001000,
+  Sync1764600002000,
+];

@@ -51,3 +51,9 @@ export abstract class SyncedEntity {
   @DeleteDateColumn({ type: 'timestamptz' })
   deletedAt: Date | null;
 }
+
+/**
+ * A JSON object as stored in a jsonb column. Not recursive on purpose: TypeORM's partial-update
+ * types cannot expand a recursive JSON type.
+ */
+export type JsonObject = { [key: string]: string | number | boolean | null | object };

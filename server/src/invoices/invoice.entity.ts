@@ -1,5 +1,5 @@
 import { Column, Entity, Index, JoinColumn, ManyToOne, Unique } from 'typeorm';
-import { SyncedEntity } from '../database/synced.entity';
+import { SyncedEntity, type JsonObject } from '../database/synced.entity';
 import { Job } from '../jobs/job.entity';
 
 /** An invoice, numbered without gaps within the business. */
@@ -34,5 +34,5 @@ export class Invoice extends SyncedEntity {
   currency: string;
 
   @Column({ type: 'jsonb', default: () => "'[]'" })
-  lines: Record<string, unknown>[];
+  lines: JsonObject[];
 }

@@ -189,7 +189,11 @@ export class JobsService implements OnModuleInit {
   async assign({ actor, m }: CommandContext, { id, techId }: AssignJobDto): Promise<Job> {
     const job = await jobInScope(m, actor, id);
     if (techId) await this.checkTech(m, actor, techId);
+    if (techId === job.assignedTechId) return job;
     await m.update(Job, { id: job.id }, { assignedTechId: techId });
+    // What the old and the new helper may see has changed: their devices pull afresh.
+    const touched = [job.assignedTechId, techId].filter((u): u is string => !!u);
+    if (touched.length) await m.increment(User, { id: In(touched) }, 'scopeEpoch', 1);
     return m.findOneByOrFail(Job, { id });
   }
 

@@ -1,5 +1,5 @@
 import { Column, Entity, Index } from 'typeorm';
-import { numericNumber, SyncedEntity } from '../database/synced.entity';
+import { numericNumber, SyncedEntity, type JsonObject } from '../database/synced.entity';
 
 /** A product or tool on the Shelf, with the properties the computations need, stock and cost. */
 @Entity('products')
@@ -12,7 +12,7 @@ export class Product extends SyncedEntity {
   kind: string;
 
   @Column({ type: 'jsonb', default: () => "'{}'" })
-  properties: Record<string, unknown>;
+  properties: JsonObject;
 
   @Column({ type: 'text', default: 'mL' })
   unit: string;

@@ -1,5 +1,5 @@
 import { Column, Entity, Index, JoinColumn, ManyToOne } from 'typeorm';
-import { numericNumber, SyncedEntity } from '../database/synced.entity';
+import { numericNumber, SyncedEntity, type JsonObject } from '../database/synced.entity';
 import { Customer } from '../customers/customer.entity';
 import { Vehicle } from '../vehicles/vehicle.entity';
 
@@ -26,7 +26,7 @@ export class Quote extends SyncedEntity {
   status: string;
 
   @Column({ type: 'jsonb', default: () => "'{}'" })
-  inputs: Record<string, unknown>;
+  inputs: JsonObject;
 
   @Column({ type: 'integer', default: 0 })
   subtotalMinor: number;

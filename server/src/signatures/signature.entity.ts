@@ -1,5 +1,5 @@
 import { Column, Entity, Index } from 'typeorm';
-import { SyncedEntity } from '../database/synced.entity';
+import { SyncedEntity, type JsonObject } from '../database/synced.entity';
 
 /** A signature over exactly the record shown, with the SHA-256 of that record. Never edited. */
 @Entity('signatures')
@@ -26,7 +26,7 @@ export class Signature extends SyncedEntity {
   recordHash: string;
 
   @Column({ type: 'jsonb' })
-  record: Record<string, unknown>;
+  record: JsonObject;
 
   @Column({ type: 'timestamptz' })
   signedAt: Date;

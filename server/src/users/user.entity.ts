@@ -48,6 +48,13 @@ export class User {
   @Column({ type: 'text', nullable: true })
   passwordHash: string | null;
 
+  /**
+   * Bumped when what this person may see changes (a helper given or taken off a job), so
+   * their devices start their next pull from scratch.
+   */
+  @Column({ type: 'integer', default: 0 })
+  scopeEpoch: number;
+
   @CreateDateColumn({ type: 'timestamptz' })
   createdAt: Date;
 

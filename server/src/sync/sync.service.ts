@@ -1,0 +1,253 @@
+import { HttpStatus, Injectable, Logger } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import {
+  SYNC_TABLES,
+  type MutationOutcome,
+  type PullResponse,
+  type PushResponse,
+  type SyncRow,
+  type SyncTable,
+} from '@panelpass/shared';
+import { DataSource, EntityManager, ObjectLiteral, SelectQueryBuilder } from 'typeorm';
+import type { Actor } from '../auth/current-user.decorator';
+import { CommandBus } from '../commands/command-bus.service';
+import { toErrorBody } from '../common/all-exceptions.filter';
+import { AppException, type ErrorBody } from '../common/app.exception';
+import { User } from '../users/user.entity';
+import type { PullQueryDto, PushDto } from './dto/sync.dto';
+import { SyncClient } from './sync-client.entity';
+import { SyncRejection } from './sync-rejection.entity';
+
+const DEFAULT_PULL_LIMIT = 1000;
+
+/** Tables a helper sees through the jobs assigned to them (by `job_id`). */
+const JOB_CHILD_TABLES = new Set<SyncTable>([
+  'job_panels',
+  'checklist_items',
+  'damage_pins',
+  'film_readings',
+  'correction_passes',
+  'chips',
+  'chip_layers',
+  'solvent_applications',
+  'masking_items',
+  'photos',
+  'signatures',
+]);
+/** Money tables: never sent to a helper. */
+const OWNER_ONLY_TABLES = new Set<SyncTable>([
+  'quotes',
+  'quote_lines',
+  'payments',
+  'invoices',
+  'stock_movements',
+]);
+/** Fields a helper's device never receives. */
+const HIDDEN_FROM_TECH: Partial<Record<SyncTable, string[]>> = {
+  jobs: ['priceMinor'],
+  products: ['unitCostMinor'],
+};
+
+/**
+ * A failure that will not go away on retry (bad arguments, no permission, a refused state
+ * change): the mutation is refused and the queue moves on. Anything else (the database going
+ * away) aborts the push so the device sends it again.
+ */
+function permanentFailure(e: unknown): ErrorBody | null {
+  const body = toErrorBody(e);
+  return body.statusCode >= 400 && body.statusCode < 500 && body.statusCode !== 429 ? body : null;
+}
+
+@Injectable()
+export class SyncService {
+  private readonly logger = new Logger('Sync');
+
+  constructor(
+    @InjectDataSource() private readonly db: DataSource,
+    private readonly bus: CommandBus,
+  ) {}
+
+  /**
+   * Applies the pushed mutations in order, each in a transaction of its own together with the
+   * device's `lastMutationId`, so a retried push skips what was done. A mutation refused for
+   * good is recorded with its reason and still advances the counter; a passing failure (the
+   * database going away) stops the push, and the device sends the rest again later.
+   */
+  async push(actor: Actor, dto: PushDto): Promise<PushResponse> {
+    this.checkRole(actor);
+    const mutations = [...dto.mutations].sort((a, b) => a.id - b.id);
+    const results: MutationOutcome[] = [];
+    let lastMutationId = await this.ensureClient(actor, dto.clientId);
+    for (const mutation of mutations) {
+      const outcome = await this.db.transaction(async (m) => {
+        const client = await m.findOne(SyncClient, {
+          where: { clientId: dto.clientId },
+          lock: { mode: 'pessimistic_write' },
+        });
+        if (!client) throw new Error('sync client vanished');
+        if (mutation.id <= client.lastMutationId) {
+          return {
+            outcome: { id: mutation.id, status: 'skipped' } as MutationOutcome,
+            last: client.lastMutationId,
+          };
+        }
+        let outcome: MutationOutcome;
+        try {
+          // A savepoint: a refused mutation rolls back its own writes, not the counter.
+          await m.transaction((inner) =>
+            this.bus.executeIn(inner, actor, mutation.name, mutation.args, dto.clientId),
+          );
+          outcome = { id: mutation.id, status: 'applied' };
+        } catch (e) {
+          const body = permanentFailure(e);
+          if (!body) throw e;
+          outcome = {
+            id: mutation.id,
+            status: 'rejected',
+            code: body.code,
+            message: body.message,
+            ...(body.details !== undefined ? { details: body.details } : {}),
+          };
+          await m.insert(SyncRejection, {
+            clientId: dto.clientId,
+            businessId: actor.businessId,
+            mutationId: mutation.id,
+            name: mutation.name,
+            code: outcome.code,
+            message: outcome.message,
+            details: (outcome.details ?? null) as object | null,
+          });
+        }
+        await m.update(SyncClient, { clientId: dto.clientId }, { lastMutationId: mutation.id });
+        return { outcome, last: mutation.id };
+      });
+      results.push(outcome.outcome);
+      lastMutationId = outcome.last;
+    }
+    return { lastMutationId, results, serverTime: Date.now() };
+  }
+
+  /** Every row the caller may see with `version > cursor`, tombstones included, a page at a time. */
+  async pull(actor: Actor, query: PullQueryDto): Promise<PullResponse> {
+    this.checkRole(actor);
+    const limit = query.limit ?? DEFAULT_PULL_LIMIT;
+    return this.db.transaction('REPEATABLE READ', async (m) => {
+      const user = await m.findOne(User, { where: { id: actor.userId } });
+      const scope = user?.scopeEpoch ?? 0;
+      const reset = query.cursor > 0 && query.scope !== scope;
+      const cursor = reset ? 0 : query.cursor;
+      const lastMutationId =
+        (await m.findOne(SyncClient, { where: { clientId: query.clientId, userId: actor.userId } }))
+          ?.lastMutationId ?? 0;
+
+      const pages = new Map<SyncTable, SyncRow[]>();
+      let truncatedAt = Number.POSITIVE_INFINITY;
+      for (const table of SYNC_TABLES) {
+        const qb = this.scoped(m, actor, table);
+        if (!qb) continue;
+        const rows = await qb
+          .andWhere('t.version > :cursor', { cursor })
+          .orderBy('t.version', 'ASC')
+          .take(limit + 1)
+          .getMany();
+        if (rows.length > limit) {
+          rows.length = limit;
+          truncatedAt = Math.min(truncatedAt, (rows[limit - 1] as { version: number }).version);
+        }
+        if (rows.length)
+          pages.set(
+            table,
+            rows.map((r) => this.present(actor, table, r)),
+          );
+      }
+      // When a table was cut short, keep only what lies at or below the cut in every table, so
+      // the next page (from the new cursor) misses nothing.
+      const more = Number.isFinite(truncatedAt);
+      let newCursor = cursor;
+      const changes: PullResponse['changes'] = {};
+      for (const [table, rows] of pages) {
+        const kept = more ? rows.filter((r) => r.version <= truncatedAt) : rows;
+        if (!kept.length) continue;
+        changes[table] = kept;
+        newCursor = Math.max(newCursor, kept[kept.length - 1]!.version);
+      }
+      return {
+        cursor: newCursor,
+        lastMutationId,
+        changes,
+        more,
+        serverTime: Date.now(),
+        reset,
+        scope,
+      };
+    });
+  }
+
+  private scoped(
+    m: EntityManager,
+    actor: Actor,
+    table: SyncTable,
+  ): SelectQueryBuilder<ObjectLiteral> | null {
+    const meta = this.db.entityMetadatas.find((e) => e.tableName === table);
+    if (!meta) throw new Error(`No entity for synced table ${table}`);
+    const qb = m
+      .getRepository<ObjectLiteral>(meta.target)
+      .createQueryBuilder('t')
+      .withDeleted()
+      .where('t.business_id = :b', { b: actor.businessId });
+    if (actor.role === 'owner') return qb;
+    if (OWNER_ONLY_TABLES.has(table)) return null;
+    const assigned = 'SELECT j.id FROM jobs j WHERE j.business_id = :b AND j.assigned_tech_id = :u';
+    qb.setParameter('u', actor.userId);
+    if (table === 'jobs') return qb.andWhere('t.assigned_tech_id = :u');
+    if (JOB_CHILD_TABLES.has(table)) return qb.andWhere(`t.job_id IN (${assigned})`);
+    if (table === 'timers') return qb.andWhere(`(t.job_id IN (${assigned}) OR t.started_by = :u)`);
+    if (table === 'climate_readings')
+      return qb.andWhere(`(t.job_id IN (${assigned}) OR t.taken_by = :u)`);
+    if (table === 'customers') {
+      return qb.andWhere(
+        `t.id IN (SELECT j.customer_id FROM jobs j WHERE j.business_id = :b AND j.assigned_tech_id = :u)`,
+      );
+    }
+    if (table === 'vehicles') {
+      return qb.andWhere(
+        `t.id IN (SELECT j.vehicle_id FROM jobs j WHERE j.business_id = :b AND j.assigned_tech_id = :u)`,
+      );
+    }
+    if (table === 'products') return qb;
+    return null;
+  }
+
+  private present(actor: Actor, table: SyncTable, row: ObjectLiteral): SyncRow {
+    const out: Record<string, unknown> = { ...row };
+    if (actor.role === 'tech') for (const f of HIDDEN_FROM_TECH[table] ?? []) delete out[f];
+    return out as SyncRow;
+  }
+
+  private checkRole(actor: Actor): void {
+    if (actor.role === 'customer') {
+      throw new AppException(HttpStatus.FORBIDDEN, 'forbidden', 'Customers do not sync devices');
+    }
+  }
+
+  /** Registers a device on its first push; a device id belongs to one person. */
+  private async ensureClient(actor: Actor, clientId: string): Promise<number> {
+    await this.db
+      .createQueryBuilder()
+      .insert()
+      .into(SyncClient)
+      .values({ clientId, businessId: actor.businessId, userId: actor.userId, lastMutationId: 0 })
+      .orIgnore()
+      .execute();
+    const client = await this.db.getRepository(SyncClient).findOneByOrFail({ clientId });
+    if (client.userId !== actor.userId) {
+      this.logger.warn(`device ${clientId} pushed by another user`);
+      throw new AppException(
+        HttpStatus.CONFLICT,
+        'client-id-taken',
+        'This device id belongs to another sign-in; start a fresh one',
+      );
+    }
+    return client.lastMutationId;
+  }
+}
