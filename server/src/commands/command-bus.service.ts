@@ -28,8 +28,14 @@ const isObject = (v: unknown): v is Record<string, unknown> =>
  * took 101, and a pull in between would move its cursor past 100 and never see it.
  */
 export async function lockBusinessWrites(m: EntityManager, businessId: string): Promise<void> {
+  const runner = m.queryRunner;
+  if (runner && locked.get(runner) === businessId) return;
   await m.query('SELECT pg_advisory_xact_lock(hashtextextended($1, 0))', [businessId]);
+  if (runner) locked.set(runner, businessId);
 }
+
+/** Which business's lock a transaction's connection holds (cleared when it ends). */
+const locked = new WeakMap<object, string>();
 
 @Injectable()
 export class CommandBus {
@@ -92,14 +98,20 @@ export class CommandBus {
     await lockBusinessWrites(m, actor.businessId);
     const result = await def.run({ actor, m, via }, args);
     const subjectId = typeof rawArgs.id === 'string' ? rawArgs.id : null;
-    await m.save(AuditEntry, {
-      businessId: actor.businessId,
-      userId: actor.userId,
-      command: name,
-      subjectId: subjectId && /^[0-9a-f-]{36}$/i.test(subjectId) ? subjectId : null,
-      args: rawArgs,
-      via,
-    });
+    await m
+      .createQueryBuilder()
+      .insert()
+      .into(AuditEntry)
+      .values({
+        businessId: actor.businessId,
+        userId: actor.userId,
+        command: name,
+        subjectId: subjectId && /^[0-9a-f-]{36}$/i.test(subjectId) ? subjectId : null,
+        args: rawArgs as AuditEntry['args'],
+        via,
+      })
+      .updateEntity(false)
+      .execute();
     return result as R;
   }
 }

@@ -1,0 +1,32 @@
+# Helpers for benchmarks: a throwaway PostgreSQL cluster and a built server. Source it.
+source "$(dirname "${BASH_SOURCE[0]}")/../lib/common.sh"
+
+export PANELPASS_DB_PORT=${PANELPASS_BENCH_DB_PORT:-54349}
+export PANELPASS_DB_FSYNC=${PANELPASS_BENCH_FSYNC:-on}
+export PANELPASS_DB_DIR=${PANELPASS_BENCH_DB_DIR:-$(mktemp -d /var/tmp/panelpass-benchdb-XXXXXX)}
+chmod 755 "$PANELPASS_DB_DIR"
+BENCH_SERVER_PID=""
+
+bench_cleanup() {
+  set +e
+  if [ -n "$BENCH_SERVER_PID" ]; then kill "$BENCH_SERVER_PID" 2>/dev/null; wait "$BENCH_SERVER_PID" 2>/dev/null; fi
+  scripts/db destroy >/dev/null 2>&1 || true
+  rm -rf "$PANELPASS_DB_DIR"
+}
+trap bench_cleanup EXIT
+
+# bench_server PORT: migrates the throwaway database and starts the built server on PORT.
+bench_server() {
+  local port=$1
+  ensure_node_modules
+  scripts/db start >/dev/null
+  export DATABASE_URL
+  DATABASE_URL=$(scripts/db url)
+  [ -f server/dist/main.js ] || npm run --silent build -w shared -w server
+  node server/dist/database/migrate.js >/dev/null
+  NODE_ENV=production HOST=127.0.0.1 PORT=$port JWT_SECRET=bench-secret-bench-secret-bench-secret-1 \
+    SIGN_IN_LIMIT=100000 node server/dist/main.js >/tmp/panelpass-bench-server.log 2>&1 &
+  BENCH_SERVER_PID=$!
+  wait_for_http "http://127.0.0.1:$port/api/health" 60 || { cat /tmp/panelpass-bench-server.log; exit 1; }
+  export BENCH_URL="http://127.0.0.1:$port"
+}
