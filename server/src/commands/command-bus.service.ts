@@ -107,7 +107,7 @@ export class CommandBus {
         userId: actor.userId,
         command: name,
         subjectId: subjectId && /^[0-9a-f-]{36}$/i.test(subjectId) ? subjectId : null,
-        args: rawArgs as AuditEntry['args'],
+        args: rawArgs,
         via,
       })
       .updateEntity(false)
