@@ -15,6 +15,9 @@ import { type EnvironmentVariables, validateEnv } from './config/env.validation'
 import { dataSourceOptions } from './database/data-source';
 import { HealthModule } from './health/health.module';
 import { InvitesModule } from './invites/invites.module';
+import { AuditModule } from './audit/audit.module';
+import { BusinessesModule } from './businesses/businesses.module';
+import { UsersModule } from './users/users.module';
 import { SyncModule } from './sync/sync.module';
 
 @Module({
@@ -31,6 +34,9 @@ import { SyncModule } from './sync/sync.module';
     CustomersModule,
     VehiclesModule,
     JobsModule,
+    BusinessesModule,
+    UsersModule,
+    AuditModule,
     SyncModule,
     HealthModule,
   ],
