@@ -15,6 +15,7 @@ import { type EnvironmentVariables, validateEnv } from './config/env.validation'
 import { dataSourceOptions } from './database/data-source';
 import { HealthModule } from './health/health.module';
 import { InvitesModule } from './invites/invites.module';
+import { QuotesModule } from './quotes/quotes.module';
 import { AuditModule } from './audit/audit.module';
 import { BusinessesModule } from './businesses/businesses.module';
 import { UsersModule } from './users/users.module';
@@ -36,6 +37,7 @@ import { SyncModule } from './sync/sync.module';
     JobsModule,
     BusinessesModule,
     UsersModule,
+    QuotesModule,
     AuditModule,
     SyncModule,
     HealthModule,
