@@ -15,6 +15,8 @@ import { type EnvironmentVariables, validateEnv } from './config/env.validation'
 import { dataSourceOptions } from './database/data-source';
 import { HealthModule } from './health/health.module';
 import { InvitesModule } from './invites/invites.module';
+import { InvoicesModule } from './invoices/invoices.module';
+import { PaymentsModule } from './payments/payments.module';
 import { QuotesModule } from './quotes/quotes.module';
 import { AuditModule } from './audit/audit.module';
 import { BusinessesModule } from './businesses/businesses.module';
@@ -38,6 +40,8 @@ import { SyncModule } from './sync/sync.module';
     BusinessesModule,
     UsersModule,
     QuotesModule,
+    PaymentsModule,
+    InvoicesModule,
     AuditModule,
     SyncModule,
     HealthModule,

@@ -1,0 +1,26 @@
+import { Controller, Get, Param, ParseUUIDPipe, Query } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { type Actor, CurrentUser } from '../auth/current-user.decorator';
+import { Roles } from '../auth/roles.decorator';
+import type { Page } from '../common/dto/page.dto';
+import { InvoiceQueryDto } from './dto/invoice.dto';
+import { Invoice } from './invoice.entity';
+import { InvoicesService } from './invoices.service';
+
+@ApiTags('ledger')
+@ApiBearerAuth()
+@Roles('owner')
+@Controller('invoices')
+export class InvoicesController {
+  constructor(private readonly invoices: InvoicesService) {}
+
+  @Get()
+  list(@CurrentUser() actor: Actor, @Query() query: InvoiceQueryDto): Promise<Page<Invoice>> {
+    return this.invoices.list(actor, query);
+  }
+
+  @Get(':id')
+  get(@CurrentUser() actor: Actor, @Param('id', ParseUUIDPipe) id: string): Promise<Invoice> {
+    return this.invoices.get(actor, id);
+  }
+}
