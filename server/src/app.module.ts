@@ -15,6 +15,8 @@ import { type EnvironmentVariables, validateEnv } from './config/env.validation'
 import { dataSourceOptions } from './database/data-source';
 import { HealthModule } from './health/health.module';
 import { InvitesModule } from './invites/invites.module';
+import { PhotosModule } from './photos/photos.module';
+import { SignaturesModule } from './signatures/signatures.module';
 import { InvoicesModule } from './invoices/invoices.module';
 import { PaymentsModule } from './payments/payments.module';
 import { QuotesModule } from './quotes/quotes.module';
@@ -42,6 +44,8 @@ import { SyncModule } from './sync/sync.module';
     QuotesModule,
     PaymentsModule,
     InvoicesModule,
+    PhotosModule,
+    SignaturesModule,
     AuditModule,
     SyncModule,
     HealthModule,

@@ -61,6 +61,11 @@ export class EnvironmentVariables {
   /** Public base URL used in links sent to people (invites, customer links). */
   @IsString()
   PUBLIC_URL = 'http://127.0.0.1:8080';
+
+  /** Folder for uploaded photos and signature images, one sub-folder per business. */
+  @IsString()
+  @MinLength(1)
+  BLOB_DIR = '.data/blobs';
 }
 
 export function validateEnv(config: Record<string, unknown>): EnvironmentVariables {
