@@ -24,6 +24,17 @@ import { AuditModule } from './audit/audit.module';
 import { BusinessesModule } from './businesses/businesses.module';
 import { UsersModule } from './users/users.module';
 import { SyncModule } from './sync/sync.module';
+import { ChecklistModule } from './checklist/checklist.module';
+import { ChipsModule } from './chips/chips.module';
+import { ClimateModule } from './climate/climate.module';
+import { MaskingModule } from './masking/masking.module';
+import { PassesModule } from './passes/passes.module';
+import { PinsModule } from './pins/pins.module';
+import { ProductsModule } from './products/products.module';
+import { ReadingsModule } from './readings/readings.module';
+import { SolventsModule } from './solvents/solvents.module';
+import { TimersModule } from './timers/timers.module';
+import { WorkspaceModule } from './workspace/workspace.module';
 
 @Module({
   imports: [
@@ -39,6 +50,17 @@ import { SyncModule } from './sync/sync.module';
     CustomersModule,
     VehiclesModule,
     JobsModule,
+    ProductsModule,
+    PinsModule,
+    ReadingsModule,
+    PassesModule,
+    ChipsModule,
+    SolventsModule,
+    MaskingModule,
+    TimersModule,
+    ChecklistModule,
+    ClimateModule,
+    WorkspaceModule,
     BusinessesModule,
     UsersModule,
     QuotesModule,
