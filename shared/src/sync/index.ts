@@ -1,1 +1,4 @@
 export * from './protocol';
+export * from './rows';
+export * from './commands';
+export * from './local-effects';

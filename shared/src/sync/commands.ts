@@ -1,0 +1,220 @@
+/**
+ * The commands a device records as mutations, with their arguments as JSON (dates as ISO
+ * strings). The names and fields are the server's command bus's (its DTOs validate them and
+ * refuse unknown fields), so nothing here may add a field the server does not take.
+ *
+ * `expectedVersion` (a stale-write check) is left out on purpose: a device that edits
+ * offline would trip it with its own earlier, still-pending change. Offline edits are last
+ * write wins per field, as the protocol says.
+ */
+
+export interface CustomerFields {
+  name: string;
+  email?: string | null;
+  phone?: string | null;
+  address?: string;
+  lat?: number | null;
+  lng?: number | null;
+  notes?: string;
+}
+
+export interface VehicleFields {
+  make?: string;
+  model?: string;
+  year?: number | null;
+  bodyStyle: string;
+  colour?: string;
+  paintNotes?: string;
+  plate?: string | null;
+}
+
+export interface JobCreateArgs {
+  id: string;
+  customerId: string;
+  vehicleId: string;
+  quoteId?: string | null;
+  address?: string;
+  lat?: number | null;
+  lng?: number | null;
+  windowStart: string;
+  windowEnd: string;
+  assignedTechId?: string | null;
+  services?: string[];
+  priceMinor?: number;
+  notes?: string;
+}
+
+export interface JobUpdateArgs {
+  id: string;
+  address?: string;
+  lat?: number | null;
+  lng?: number | null;
+  windowStart?: string;
+  windowEnd?: string;
+  services?: string[];
+  priceMinor?: number;
+  notes?: string;
+  conditionNotes?: string;
+}
+
+export interface PinFields {
+  number?: number;
+  x: number;
+  y: number;
+  panelKey?: string | null;
+  kind: string;
+  severity: number;
+  note?: string;
+  photoId?: string | null;
+}
+
+export interface TimerStartArgs {
+  id: string;
+  jobId?: string | null;
+  kind: string;
+  subjectType?: string | null;
+  subjectId?: string | null;
+  label: string;
+  startedAt?: string;
+  durationMs?: number;
+  endsAt?: string;
+}
+
+/** Every command a device may record, by name. */
+export interface CommandArgs {
+  'customer.create': CustomerFields & { id: string };
+  'customer.update': Partial<CustomerFields> & { id: string };
+  'customer.remove': { id: string };
+  'vehicle.create': VehicleFields & { id: string; customerId: string };
+  'vehicle.update': Partial<VehicleFields> & { id: string };
+  'vehicle.remove': { id: string };
+  'job.create': JobCreateArgs;
+  'job.update': JobUpdateArgs;
+  'job.setStage': { id: string; stage: string };
+  'job.assign': { id: string; techId: string | null };
+  'job.remove': { id: string };
+  'pin.add': PinFields & { id: string; jobId: string };
+  'pin.update': Partial<PinFields> & { id: string };
+  'pin.remove': { id: string };
+  'reading.add': {
+    id: string;
+    jobId: string;
+    panelId: string;
+    phase: 'before' | 'after';
+    readings: number[];
+    unit: 'um' | 'mil';
+    gaugeType: 'magnetic' | 'eddy-current' | 'magnetic-eddy' | 'ultrasonic';
+    takenAt?: string;
+  };
+  'panel.update': {
+    id: string;
+    finish?: string;
+    hardness?: 'soft' | 'medium' | 'hard' | 'unknown';
+    state?: 'todo' | 'in-progress' | 'done' | 'skipped';
+    substrate?: 'steel' | 'aluminium' | 'plastic' | 'composite' | 'unknown';
+    clearEstimateUm?: number | null;
+    testSpotNote?: string;
+  };
+  'pass.log': {
+    id: string;
+    jobId: string;
+    panelId: string;
+    step: string;
+    machine: string;
+    pad: string;
+    productId?: string;
+    speedSetting: string;
+    passes: number;
+    result: 'another-pass' | 'change-combination' | 'done';
+    note?: string;
+    loggedAt?: string;
+  };
+  'chip.add': {
+    id: string;
+    jobId: string;
+    panelId?: string | null;
+    number?: number;
+    sizeMm: number;
+    productId?: string | null;
+    layersPlanned: number;
+    note?: string;
+  };
+  'chip.addLayer': { id: string; chipId: string; appliedAt?: string; productId?: string | null };
+  'solvent.apply': {
+    id: string;
+    jobId: string;
+    panelId?: string | null;
+    productId?: string | null;
+    surfaceTempC: number;
+    inSun: boolean;
+    appliedAt?: string;
+  };
+  'solvent.flush': { id: string; at?: string };
+  'mask.add': {
+    id: string;
+    jobId: string;
+    what: string;
+    panelId?: string | null;
+    productId?: string | null;
+    appliedAt?: string;
+  };
+  'mask.remove': { id: string; at?: string };
+  'timer.start': TimerStartArgs;
+  'timer.pause': { id: string; at?: string };
+  'timer.resume': { id: string; at?: string };
+  'timer.ack': { id: string };
+  'timer.cancel': { id: string };
+  'check.toggle': { id: string; done: boolean };
+  'climate.record': {
+    id: string;
+    jobId?: string | null;
+    airC: number;
+    rhPct: number;
+    surfaceC?: number | null;
+    takenAt?: string;
+  };
+  'photo.attach': {
+    id: string;
+    jobId?: string | null;
+    vehicleId?: string | null;
+    subjectType?: string | null;
+    subjectId?: string | null;
+    kind: 'before' | 'after' | 'damage' | 'other';
+    sha256: string;
+    mime: string;
+    width: number;
+    height: number;
+    bytes: number;
+    caption?: string;
+    takenAt?: string;
+  };
+  'signature.capture': {
+    id: string;
+    jobId?: string | null;
+    quoteId?: string | null;
+    kind: 'condition' | 'acceptance' | 'quote';
+    signerName: string;
+    imageSha256: string;
+    record: Record<string, unknown>;
+    recordHash: string;
+  };
+  'payment.recordCash': {
+    id: string;
+    opId: string;
+    jobId: string;
+    kind: 'deposit' | 'balance' | 'refund';
+    method: 'cash' | 'cheque';
+    amountMinor: number;
+  };
+}
+
+export type CommandName = keyof CommandArgs;
+
+/** The SHA-256 hashes of blobs a mutation points at: they must reach the server first. */
+export function blobsReferenced(name: string, args: Record<string, unknown>): string[] {
+  if (name === 'photo.attach' && typeof args.sha256 === 'string') return [args.sha256];
+  if (name === 'signature.capture' && typeof args.imageSha256 === 'string') {
+    return [args.imageSha256];
+  }
+  return [];
+}

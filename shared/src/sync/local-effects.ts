@@ -1,0 +1,314 @@
+/**
+ * The rows a command makes, computed the same way on the device (optimistically, offline)
+ * and on the server (for the record). Pure: every time and id comes in through the
+ * arguments or the context, so applying a command twice to the same rows gives the same
+ * rows — which is what a rebase after a pull relies on.
+ */
+import { flushBy, maskRemoveBy, type MaskingTape, type SolventProduct } from '../dwell';
+import { childId, DEFAULT_CHECKLIST } from '../jobs';
+import { bodyStyleTemplate, type BodyStyle } from '../panels';
+import { InputError } from '../errors';
+import type { CommandArgs, JobCreateArgs } from './commands';
+import type {
+  ChecklistItemRow,
+  JobPanelRow,
+  JobRow,
+  MaskingItemRow,
+  RowBase,
+  SolventApplicationRow,
+  TimerRow,
+} from './rows';
+
+/** Who records the command and when (epoch ms, on the server's clock as well as known). */
+export interface EffectContext {
+  userId: string;
+  businessId: string;
+  atMs: number;
+}
+
+const iso = (ms: number): string => new Date(ms).toISOString();
+
+/** The columns of a row made on the device: version 0 until the server's copy arrives. */
+export function newRowBase(id: string, ctx: EffectContext): RowBase {
+  const at = iso(ctx.atMs);
+  return {
+    id,
+    businessId: ctx.businessId,
+    version: 0,
+    createdAt: at,
+    updatedAt: at,
+    deletedAt: null,
+  };
+}
+
+/** Temperatures and sizes are stored to one decimal; compute from the stored value. */
+export const toOneDecimal = (n: number): number => Math.round(n * 10) / 10;
+
+/** The id of a job's panel made from the body-style template (same on device and server). */
+export const jobPanelId = (jobId: string, templateId: string): string =>
+  childId(jobId, `panel:${templateId}`);
+
+/** The id of a job's checklist item made from the default checklist. */
+export const checklistItemId = (jobId: string, key: string): string =>
+  childId(jobId, `check:${key}`);
+
+/** The id of the flush timer a solvent application starts. */
+export const flushTimerId = (applicationId: string): string => childId(applicationId, 'timer');
+
+export interface JobCreateRows {
+  job: JobRow;
+  panels: JobPanelRow[];
+  checklist: ChecklistItemRow[];
+}
+
+/**
+ * A new visit with its panels (the body style's template, top down) and the default
+ * checklist. The address and position default to the customer's.
+ */
+export function jobCreateRows(
+  a: JobCreateArgs,
+  refs: {
+    customer: { address: string; lat: number | null; lng: number | null };
+    vehicle: { bodyStyle: string };
+  },
+  ctx: EffectContext,
+): JobCreateRows {
+  if (Date.parse(a.windowEnd) <= Date.parse(a.windowStart)) {
+    throw new InputError('windowEnd', 'order', 'windowEnd must be after windowStart');
+  }
+  const base = (id: string) => newRowBase(id, ctx);
+  const job: JobRow = {
+    ...base(a.id),
+    customerId: a.customerId,
+    vehicleId: a.vehicleId,
+    quoteId: a.quoteId ?? null,
+    address: a.address ?? refs.customer.address,
+    lat: a.lat ?? refs.customer.lat,
+    lng: a.lng ?? refs.customer.lng,
+    windowStart: iso(Date.parse(a.windowStart)),
+    windowEnd: iso(Date.parse(a.windowEnd)),
+    assignedTechId: a.assignedTechId ?? null,
+    stage: 'booked',
+    conditionNotes: '',
+    notes: a.notes ?? '',
+    priceMinor: a.priceMinor ?? 0,
+    services: a.services ?? [],
+  };
+  const panels = bodyStyleTemplate(refs.vehicle.bodyStyle as BodyStyle).map(
+    (p, position): JobPanelRow => ({
+      ...base(jobPanelId(a.id, p.id)),
+      jobId: a.id,
+      panelKey: p.id,
+      label: p.label,
+      band: p.band,
+      position,
+      substrate: p.substrate,
+      finish: 'clear-coat',
+      hardness: null,
+      state: 'todo',
+      areaM2: p.areaM2,
+      clearEstimateUm: null,
+      testSpotNote: '',
+    }),
+  );
+  const checklist = DEFAULT_CHECKLIST.map((c, position): ChecklistItemRow => ({
+    ...base(checklistItemId(a.id, c.key)),
+    jobId: a.id,
+    stage: c.stage,
+    key: c.key,
+    label: c.label,
+    position,
+    done: false,
+    doneAt: null,
+    doneBy: null,
+  }));
+  return { job, panels, checklist };
+}
+
+/**
+ * Our own conservative dwell for a solvent whose data-sheet maximum was not entered: three
+ * minutes at 20 °C (many spot solvents state 3–5 minutes; the short end errs towards
+ * flushing early). Our own rule, no published source.
+ */
+export const DEFAULT_SOLVENT: SolventProduct = { maxDwellMin: 3 };
+
+/**
+ * Our own conservative clean-removal window for tape whose window was not entered: one day.
+ * Our own rule, no published source.
+ */
+export const DEFAULT_TAPE: MaskingTape = { cleanRemovalDays: 1 };
+
+type Properties = Record<string, unknown> | null | undefined;
+
+/** The dwell properties of a solvent product, or the default (and that it was used). */
+export function solventOf(properties: Properties): { product: SolventProduct; isDefault: boolean } {
+  if (properties && typeof properties.maxDwellMin === 'number') {
+    const { maxDwellMin, maxSurfaceC } = properties;
+    return {
+      product: typeof maxSurfaceC === 'number' ? { maxDwellMin, maxSurfaceC } : { maxDwellMin },
+      isDefault: false,
+    };
+  }
+  return { product: DEFAULT_SOLVENT, isDefault: true };
+}
+
+/** The clean-removal window of a tape product, or the default (and that it was used). */
+export function tapeOf(properties: Properties): { tape: MaskingTape; isDefault: boolean } {
+  if (properties && typeof properties.cleanRemovalDays === 'number') {
+    const { cleanRemovalDays, cleanRemovalDaysInSun } = properties;
+    return {
+      tape:
+        typeof cleanRemovalDaysInSun === 'number'
+          ? { cleanRemovalDays, cleanRemovalDaysInSun }
+          : { cleanRemovalDays },
+      isDefault: false,
+    };
+  }
+  return { tape: DEFAULT_TAPE, isDefault: true };
+}
+
+/** What the flush timer says: "Flush Tarlift off the hood" (the server words it the same). */
+export function flushTimerLabel(productName: string | null, panelLabel: string | null): string {
+  return `Flush ${productName ?? 'solvent'} off${panelLabel ? ` the ${panelLabel.toLowerCase()}` : ''}`;
+}
+
+/**
+ * A solvent application and the flush timer it starts (ends at shared `flushBy`). The
+ * arguments must carry `appliedAt` (the device fills it in before recording).
+ */
+export function solventApplyRows(
+  a: CommandArgs['solvent.apply'] & { appliedAt: string },
+  refs: {
+    product: { name: string; properties: Properties } | null;
+    panel: { label: string } | null;
+  },
+  ctx: EffectContext,
+): { application: SolventApplicationRow; timer: TimerRow } {
+  const appliedAtMs = Date.parse(a.appliedAt);
+  const surfaceC = toOneDecimal(a.surfaceTempC);
+  const { product } = solventOf(refs.product?.properties);
+  const flush = flushBy({ appliedAtMs, product, surfaceC, inSun: a.inSun });
+  const application: SolventApplicationRow = {
+    ...newRowBase(a.id, ctx),
+    jobId: a.jobId,
+    panelId: a.panelId ?? null,
+    productId: a.productId ?? null,
+    surfaceTempC: surfaceC,
+    inSun: a.inSun,
+    appliedAt: iso(appliedAtMs),
+    flushBy: iso(flush.flushByMs),
+    flushedAt: null,
+    appliedBy: ctx.userId,
+  };
+  const timer: TimerRow = {
+    ...newRowBase(flushTimerId(a.id), ctx),
+    jobId: a.jobId,
+    kind: 'flush',
+    subjectType: 'solvent',
+    subjectId: a.id,
+    label: flushTimerLabel(refs.product?.name ?? null, refs.panel?.label ?? null),
+    startedAt: iso(appliedAtMs),
+    endsAt: iso(flush.flushByMs),
+    pausedMs: 0,
+    pausedAt: null,
+    acknowledgedAt: null,
+    cancelledAt: null,
+    startedBy: ctx.userId,
+  };
+  return { application, timer };
+}
+
+/** A masking item with its remove-by time from the tape's window (shared `maskRemoveBy`). */
+export function maskAddRow(
+  a: CommandArgs['mask.add'] & { appliedAt: string },
+  productProperties: Properties,
+  ctx: EffectContext,
+): MaskingItemRow {
+  const appliedAtMs = Date.parse(a.appliedAt);
+  const { removeByMs } = maskRemoveBy({ appliedAtMs, tape: tapeOf(productProperties).tape });
+  return {
+    ...newRowBase(a.id, ctx),
+    jobId: a.jobId,
+    what: a.what,
+    panelId: a.panelId ?? null,
+    productId: a.productId ?? null,
+    appliedAt: iso(appliedAtMs),
+    removeBy: iso(removeByMs),
+    removedAt: null,
+  };
+}
+
+/** The longest wait a timer may have (the server refuses longer). */
+export const MAX_TIMER_MS = 30 * 24 * 60 * 60 * 1000;
+
+/** A timer with an absolute end: `endsAt` as given, or `startedAt + durationMs`. */
+export function timerStartRow(
+  a: CommandArgs['timer.start'] & { startedAt: string },
+  ctx: EffectContext,
+): TimerRow {
+  const startedAtMs = Date.parse(a.startedAt);
+  if (a.endsAt !== undefined && a.durationMs !== undefined) {
+    throw new InputError('endsAt', 'consistent', 'Give durationMs or endsAt, not both');
+  }
+  let endsAtMs: number;
+  if (a.endsAt !== undefined) endsAtMs = Date.parse(a.endsAt);
+  else if (a.durationMs !== undefined) endsAtMs = startedAtMs + a.durationMs;
+  else throw new InputError('durationMs', 'non-empty', 'Give durationMs or endsAt');
+  if (!(endsAtMs > startedAtMs)) {
+    throw new InputError('endsAt', 'order', 'endsAt must be after startedAt');
+  }
+  if (endsAtMs - startedAtMs > MAX_TIMER_MS) {
+    throw new InputError('endsAt', 'range', 'A timer may run at most 30 days');
+  }
+  return {
+    ...newRowBase(a.id, ctx),
+    jobId: a.jobId ?? null,
+    kind: a.kind,
+    subjectType: a.subjectType ?? null,
+    subjectId: a.subjectId ?? null,
+    label: a.label,
+    startedAt: iso(startedAtMs),
+    endsAt: iso(endsAtMs),
+    pausedMs: 0,
+    pausedAt: null,
+    acknowledgedAt: null,
+    cancelledAt: null,
+    startedBy: ctx.userId,
+  };
+}
+
+type TimerTimes = Pick<
+  TimerRow,
+  'endsAt' | 'pausedMs' | 'pausedAt' | 'acknowledgedAt' | 'cancelledAt'
+>;
+
+/** Pausing a running timer; null when it is already paused or finished with (or ended). */
+export function pauseTimer(t: TimerTimes, atMs: number): Pick<TimerRow, 'pausedAt'> | null {
+  if (t.pausedAt !== null || t.cancelledAt !== null || t.acknowledgedAt !== null) return null;
+  if (atMs >= Date.parse(t.endsAt)) return null;
+  return { pausedAt: iso(atMs) };
+}
+
+/**
+ * Resuming a paused timer: the paused span is added to `pausedMs` and pushes `endsAt` later
+ * by exactly as much. Null when it is not paused. A resume stamped before the pause (two
+ * clocks) counts as no pause at all.
+ */
+export function resumeTimer(
+  t: TimerTimes,
+  atMs: number,
+): Pick<TimerRow, 'pausedAt' | 'pausedMs' | 'endsAt'> | null {
+  if (t.pausedAt === null) return null;
+  const span = Math.max(0, atMs - Date.parse(t.pausedAt));
+  return {
+    pausedAt: null,
+    pausedMs: t.pausedMs + span,
+    endsAt: iso(Date.parse(t.endsAt) + span),
+  };
+}
+
+/** Time left on a timer at `nowMs` (server clock): frozen while paused, never below 0. */
+export function timerRemainingMs(t: TimerTimes, nowMs: number): number {
+  const from = t.pausedAt !== null ? Date.parse(t.pausedAt) : nowMs;
+  return Math.max(0, Date.parse(t.endsAt) - from);
+}
