@@ -1,7 +1,7 @@
-import { JwtService } from '@nestjs/jwt';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { bodyStyleTemplate, childId, clearCoatBudget } from '@panelpass/shared';
 import { randomUUID } from 'node:crypto';
+import { signInCustomer } from './factories/customers';
 import { makeJob } from './factories/records';
 import { addTech, createTestApp, http, type Session, signUpOwner } from './support/app';
 
@@ -44,10 +44,8 @@ describe('the job workspace', () => {
   const panel = (key: string) => childId(jobId, `panel:${key}`);
 
   /** A customer's access token as the e-mailed sign-in link would give it. */
-  const customerSession = (businessId: string, cid: string) =>
-    app
-      .get(JwtService)
-      .signAsync({ sub: randomUUID(), bid: businessId, role: 'customer', cid }, { expiresIn: 600 });
+  const customerSession = async (businessId: string, cid: string) =>
+    (await signInCustomer(app, businessId, cid)).accessToken;
 
   beforeAll(async () => {
     app = await createTestApp();

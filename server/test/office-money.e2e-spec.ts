@@ -146,6 +146,8 @@ describe('office: payments, team and audit', () => {
       .post('/api/auth/refresh')
       .send({ refreshToken: helper.refreshToken })
       .expect(401);
+    // The access token they still hold stops working at once, not when it expires.
+    await http(app).get('/api/jobs').auth(helper.accessToken, bearer).expect(401);
     const job = await http(app).get(`/api/jobs/${jobId}`).auth(owner.accessToken, bearer);
     expect(job.body.assignedTechId).toBeNull();
     const team = await http(app).get('/api/users').auth(owner.accessToken, bearer);

@@ -48,21 +48,20 @@ describe('sync survives the server being killed mid-push', () => {
     // Kill once some, but not all, mutations are in.
     const lost = push().catch(() => null);
     for (let i = 0; i < 400; i++) {
-      const [row] = (await db.query(
-        'SELECT last_mutation_id FROM sync_clients WHERE client_id = $1',
-        [clientId],
-      )) as {
-        last_mutation_id: string;
-      }[];
+      const [row] = await db.query<
+        {
+          last_mutation_id: string;
+        }[]
+      >('SELECT last_mutation_id FROM sync_clients WHERE client_id = $1', [clientId]);
       if (row && Number(row.last_mutation_id) >= 20) break;
       await new Promise((r) => setTimeout(r, 10));
     }
     await server.kill();
     await lost;
-    const [{ n: before }] = (await db.query(
+    const [{ n: before }] = await db.query<[{ n: number }]>(
       'SELECT count(*)::int AS n FROM customers WHERE id = ANY($1)',
       [ids],
-    )) as { n: number }[];
+    );
     expect(before).toBeGreaterThan(0);
     expect(before).toBeLessThan(400);
 
@@ -74,15 +73,15 @@ describe('sync survives the server being killed mid-push', () => {
     expect(body.results.filter((r) => r.status === 'skipped')).toHaveLength(before);
     expect(body.results.filter((r) => r.status === 'applied')).toHaveLength(400 - before);
 
-    const [{ n: after }] = (await db.query(
+    const [{ n: after }] = await db.query<[{ n: number }]>(
       'SELECT count(*)::int AS n FROM customers WHERE id = ANY($1)',
       [ids],
-    )) as { n: number }[];
+    );
     expect(after).toBe(400);
-    const [{ n: audits }] = (await db.query(
+    const [{ n: audits }] = await db.query<[{ n: number }]>(
       "SELECT count(*)::int AS n FROM audit_entries WHERE command = 'customer.create' AND subject_id = ANY($1)",
       [ids],
-    )) as { n: number }[];
+    );
     expect(audits).toBe(400);
   }, 60_000);
 });

@@ -1,4 +1,5 @@
 import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
+import type { JsonObject } from '../database/synced.entity';
 
 /** Who changed what: one row per command applied, written in the command's transaction. */
 @Entity('audit_entries')
@@ -22,7 +23,7 @@ export class AuditEntry {
   subjectId: string | null;
 
   @Column({ type: 'jsonb', default: () => "'{}'" })
-  args: Record<string, unknown>;
+  args: JsonObject;
 
   /** `rest` or the sync client's id. */
   @Column({ type: 'text', default: 'rest' })

@@ -1,9 +1,11 @@
 import { Injectable } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { PassportStrategy } from '@nestjs/passport';
+import { InjectDataSource } from '@nestjs/typeorm';
 import { ExtractJwt, Strategy } from 'passport-jwt';
+import { DataSource, IsNull } from 'typeorm';
 import type { EnvironmentVariables } from '../config/env.validation';
-import { ROLES, type Role } from '../users/user.entity';
+import { ROLES, type Role, User } from '../users/user.entity';
 import type { Actor } from './current-user.decorator';
 
 export interface AccessTokenPayload {
@@ -17,7 +19,10 @@ export interface AccessTokenPayload {
 /** Verifies the access token: HS256 only (an `alg: none` or foreign-key token is refused). */
 @Injectable()
 export class JwtStrategy extends PassportStrategy(Strategy) {
-  constructor(config: ConfigService<EnvironmentVariables, true>) {
+  constructor(
+    config: ConfigService<EnvironmentVariables, true>,
+    @InjectDataSource() private readonly db: DataSource,
+  ) {
     super({
       jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(),
       secretOrKey: config.get('JWT_SECRET', { infer: true }),
@@ -26,10 +31,16 @@ export class JwtStrategy extends PassportStrategy(Strategy) {
     });
   }
 
-  validate(payload: Partial<AccessTokenPayload>): Actor | false {
-    if (!payload.sub || !payload.bid || !payload.role || !ROLES.includes(payload.role))
+  /** A person removed from the business loses access at once, not when the token expires. */
+  async validate(payload: Partial<AccessTokenPayload>): Promise<Actor | false> {
+    if (!payload.sub || !payload.bid || !payload.role || !ROLES.includes(payload.role)) {
       return false;
+    }
     if (payload.role === 'customer' && !payload.cid) return false;
+    const active = await this.db
+      .getRepository(User)
+      .exists({ where: { id: payload.sub, businessId: payload.bid, deletedAt: IsNull() } });
+    if (!active) return false;
     return {
       userId: payload.sub,
       businessId: payload.bid,

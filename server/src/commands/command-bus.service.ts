@@ -4,6 +4,7 @@ import { plainToInstance } from 'class-transformer';
 import { validate, ValidationError } from 'class-validator';
 import { DataSource, EntityManager } from 'typeorm';
 import { AuditEntry } from '../audit/audit-entry.entity';
+import type { JsonObject } from '../database/synced.entity';
 import type { Actor } from '../auth/current-user.decorator';
 import { AppException } from '../common/app.exception';
 import type { CommandDef } from './command.types';
@@ -107,7 +108,7 @@ export class CommandBus {
         userId: actor.userId,
         command: name,
         subjectId: subjectId && /^[0-9a-f-]{36}$/i.test(subjectId) ? subjectId : null,
-        args: rawArgs,
+        args: rawArgs as JsonObject,
         via,
       })
       .updateEntity(false)

@@ -75,6 +75,14 @@ export function toErrorBody(exception: unknown): ErrorBody {
     if (pgCode === '23505') {
       return { statusCode: 409, code: 'conflict', message: 'That record already exists' };
     }
+    if (pgCode === '23502') {
+      const column = (exception.driverError as { column?: string } | undefined)?.column;
+      return {
+        statusCode: 400,
+        code: 'validation-failed',
+        message: column ? `${column} may not be empty` : 'A required value is missing',
+      };
+    }
     if (pgCode === '23503') {
       return {
         statusCode: 400,
