@@ -113,13 +113,16 @@ export class BlobStore {
   }
 
   /**
-   * Opens a blob for reading. The owner and helpers read any image of the business; a
-   * customer only images on their own jobs, vehicles and quotes.
+   * Opens a blob for reading. The owner reads any image of the business; a helper the images
+   * on the jobs assigned to them; a customer only images on their own jobs, vehicles and quotes.
    */
   async open(actor: Actor, sha256: string): Promise<{ blob: StoredBlob; stream: ReadStream }> {
     const blob = await this.find(this.db.manager, actor.businessId, sha256);
     if (!blob) throw notFound('Image');
     if (actor.role === 'customer' && !(await this.customerMaySee(actor, sha256))) {
+      throw notFound('Image');
+    }
+    if (actor.role === 'tech' && !(await this.techMaySee(actor, sha256))) {
       throw notFound('Image');
     }
     const path = this.path(actor.businessId, sha256);
@@ -140,6 +143,21 @@ export class BlobStore {
             OR s.quote_id IN (SELECT id FROM quotes WHERE business_id = $1 AND customer_id = $3 AND deleted_at IS NULL))
        LIMIT 1`,
       [actor.businessId, sha256, actor.customerId ?? null],
+    );
+    return rows.length > 0;
+  }
+
+  private async techMaySee(actor: Actor, sha256: string): Promise<boolean> {
+    const rows: unknown[] = await this.db.query(
+      `SELECT 1 FROM photos p
+        WHERE p.business_id = $1 AND p.sha256 = $2 AND p.deleted_at IS NULL
+          AND p.job_id IN (SELECT id FROM jobs WHERE business_id = $1 AND assigned_tech_id = $3 AND deleted_at IS NULL)
+       UNION ALL
+       SELECT 1 FROM signatures s
+        WHERE s.business_id = $1 AND s.image_sha256 = $2
+          AND s.job_id IN (SELECT id FROM jobs WHERE business_id = $1 AND assigned_tech_id = $3 AND deleted_at IS NULL)
+       LIMIT 1`,
+      [actor.businessId, sha256, actor.userId],
     );
     return rows.length > 0;
   }
