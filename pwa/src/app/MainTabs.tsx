@@ -10,6 +10,7 @@ import { QueryClientProvider } from '@tanstack/react-query';
 import { Route } from 'react-router-dom';
 import { useCurrentUser } from '../features/auth/hooks/useCurrentUser';
 import { tabsForRole, type TabId } from '../features/shell/model/access';
+import { SyncProvider } from '../sync/SyncProvider';
 import { lazyPage } from './lazyPage';
 import { queryClient } from './queryClient';
 
@@ -29,11 +30,16 @@ const icons: Record<TabId, string> = {
   ledger: walletOutline,
 };
 
-/** The bottom tab bar and its pages, as the signed-in role may see them. */
+/**
+ * The bottom tab bar and its pages, as the signed-in role may see them. Sync (the phone's
+ * database and the engine) starts here, after sign-in, so the sign-in screen never loads it.
+ */
 export default function MainTabs() {
   return (
     <QueryClientProvider client={queryClient}>
-      <SignedInTabs />
+      <SyncProvider>
+        <SignedInTabs />
+      </SyncProvider>
     </QueryClientProvider>
   );
 }

@@ -1,10 +1,20 @@
-/**
- * What the sync badge says. A placeholder until the outbox exists: nothing is written
- * locally yet, so everything there is is saved.
- */
-export type SyncStatus =
-  { state: 'saved' } | { state: 'waiting'; count: number } | { state: 'needs-look'; count: number };
+import { useSync, type SyncStatusView } from './context';
 
-export function useSyncStatus(): SyncStatus {
-  return { state: 'saved' };
+const nothingToSend: SyncStatusView = {
+  state: 'saved',
+  pending: 0,
+  waitingImages: 0,
+  rejected: [],
+  lastSyncAt: null,
+  online: true,
+  syncing: false,
+  lastError: null,
+};
+
+/**
+ * Pending count, last success, rejected changes, online and syncing — for the header badge,
+ * the sync sheet and sign-out. "All saved" where nothing syncs (outside the signed-in shell).
+ */
+export function useSyncStatus(): SyncStatusView {
+  return useSync()?.status ?? nothingToSend;
 }

@@ -1,33 +1,56 @@
 import { IonIcon } from '@ionic/react';
 import { alertCircleOutline, checkmarkCircleOutline, cloudUploadOutline } from 'ionicons/icons';
-import { useSyncStatus, type SyncStatus } from '../../../sync/useSyncStatus';
+import { useState } from 'react';
+import { SyncSheet } from '../../../sync/components/SyncSheet';
+import type { SyncStatusView } from '../../../sync/context';
+import { useSyncStatus } from '../../../sync/useSyncStatus';
 
-function badgeFor(status: SyncStatus): { words: string; icon: string; tone: string } {
+export function badgeFor(status: Pick<SyncStatusView, 'state' | 'pending' | 'rejected'>): {
+  words: string;
+  icon: string;
+  tone: string;
+} {
   switch (status.state) {
     case 'saved':
       return { words: 'All saved', icon: checkmarkCircleOutline, tone: 'done' };
     case 'waiting':
       return {
-        words: `${status.count} waiting to send`,
+        words: `${status.pending} waiting to send`,
         icon: cloudUploadOutline,
         tone: 'wait',
       };
-    case 'needs-look':
+    case 'needs-look': {
+      const count = status.rejected.length;
       return {
-        words: `${status.count} ${status.count === 1 ? 'needs' : 'need'} a look`,
+        words: `${count} ${count === 1 ? 'needs' : 'need'} a look`,
         icon: alertCircleOutline,
         tone: 'stop',
       };
+    }
   }
 }
 
-/** Whether what was done on this phone has reached the server: icon and words, not colour. */
+/**
+ * Whether what was done on this phone has reached the server: icon and words, not colour.
+ * Tap for the details: what waits, when it last reached the server, what was refused.
+ */
 export function SyncBadge() {
   const { words, icon, tone } = badgeFor(useSyncStatus());
+  const [open, setOpen] = useState(false);
   return (
-    <span className={`pp-sync pp-sync--${tone}`} role="status">
-      <IonIcon icon={icon} aria-hidden="true" />
-      <span>{words}</span>
-    </span>
+    <>
+      <button
+        type="button"
+        className="pp-sync-button"
+        aria-haspopup="dialog"
+        onClick={() => setOpen(true)}
+      >
+        <span className={`pp-sync pp-sync--${tone}`} role="status">
+          <IonIcon icon={icon} aria-hidden="true" />
+          <span>{words}</span>
+        </span>
+      </button>
+      <SyncSheet isOpen={open} onClose={() => setOpen(false)} />
+    </>
   );
 }
