@@ -816,12 +816,16 @@ describe('permissions matrix', () => {
     const otherOwner = await signUpOwner(w.app, 'matrix-other');
     const techAssigned = await addTech(w.app, owner, 'matrix-ta');
     const techOther = await addTech(w.app, owner, 'matrix-to');
-    w.s = { owner, techAssigned, techOther } as World['s'];
-    w.s.otherOwner = otherOwner;
     w.jobA = await makeJob(w.app, owner, { techId: techAssigned.user.id, bodyStyle: 'sedan' });
     w.jobB = await makeJob(w.app, owner);
-    w.s.customer = await signInCustomer(w.app, owner.user.businessId, w.jobA.customerId);
-    w.s.otherCustomer = await signInCustomer(w.app, owner.user.businessId, w.jobB.customerId);
+    w.s = {
+      owner,
+      techAssigned,
+      techOther,
+      customer: await signInCustomer(w.app, owner.user.businessId, w.jobA.customerId),
+      otherCustomer: await signInCustomer(w.app, owner.user.businessId, w.jobB.customerId),
+      otherOwner,
+    };
     w.panelA = childId(w.jobA.jobId, 'panel:roof');
     w.checkA = childId(w.jobA.jobId, 'check:prep.rinse-wash');
     w.productId = await fresh.product(w);

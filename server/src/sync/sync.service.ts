@@ -144,7 +144,7 @@ export class SyncService {
         name: mutation.name,
         code: body.code,
         message: body.message,
-        details: (body.details ?? null),
+        details: body.details ?? null,
       });
       return outcome;
     }
