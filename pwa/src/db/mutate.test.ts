@@ -303,3 +303,12 @@ describe('images', () => {
     );
   });
 });
+
+describe('typed helpers', () => {
+  it('record the command they are named for', async () => {
+    const { changesOver } = await import('./changes');
+    const changes = changesOver((name, args) => mutate(db, name, args));
+    const entry = await changes.updateCustomer({ id: aCustomerRow().id, notes: 'Gate code 4412' });
+    expect(entry).toMatchObject({ name: 'customer.update', args: { notes: 'Gate code 4412' } });
+  });
+});
