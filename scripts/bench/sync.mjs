@@ -10,7 +10,10 @@ const BATCH = 200;
 async function api(path, { method = 'GET', token, body } = {}) {
   const res = await fetch(url + path, {
     method,
-    headers: { 'content-type': 'application/json', ...(token ? { authorization: `Bearer ${token}` } : {}) },
+    headers: {
+      'content-type': 'application/json',
+      ...(token ? { authorization: `Bearer ${token}` } : {}),
+    },
     body: body ? JSON.stringify(body) : undefined,
   });
   if (!res.ok) throw new Error(`${method} ${path}: ${res.status} ${await res.text()}`);
@@ -20,19 +23,30 @@ async function api(path, { method = 'GET', token, body } = {}) {
 const email = `bench-${randomUUID().slice(0, 8)}@bench.example`;
 const session = await api('/api/auth/sign-up', {
   method: 'POST',
-  body: { businessName: 'Bench Business', name: 'Bench Owner', email, password: 'bench password 123' },
+  body: {
+    businessName: 'Bench Business',
+    name: 'Bench Owner',
+    email,
+    password: 'bench password 123',
+  },
 });
 const token = session.accessToken;
 const businessId = session.user.businessId;
 
 // 1. Push N customer.create mutations, BATCH per request.
 const clientId = randomUUID();
-const rows = Array.from({ length: N }, (_, i) => ({ id: randomUUID(), name: `Bench customer ${i}` }));
+const rows = Array.from({ length: N }, (_, i) => ({
+  id: randomUUID(),
+  name: `Bench customer ${i}`,
+}));
 let t0 = performance.now();
 for (let i = 0; i < N; i += BATCH) {
-  const mutations = rows.slice(i, i + BATCH).map((args, j) => ({ id: i + j + 1, name: 'customer.create', args }));
+  const mutations = rows
+    .slice(i, i + BATCH)
+    .map((args, j) => ({ id: i + j + 1, name: 'customer.create', args }));
   const res = await api('/api/sync/push', { method: 'POST', token, body: { clientId, mutations } });
-  if (res.results.some((r) => r.status !== 'applied')) throw new Error('a mutation was not applied');
+  if (res.results.some((r) => r.status !== 'applied'))
+    throw new Error('a mutation was not applied');
 }
 const pushSeconds = (performance.now() - t0) / 1000;
 
@@ -54,7 +68,11 @@ const rawSeconds = (performance.now() - t0) / 1000;
 // 3. Pull 10,000 rows from cursor 0 (rows of this business: the pushed and the raw ones, plus more).
 const extra = Math.max(0, 10_000 - 2 * N);
 for (let i = 0; i < extra; i += 1000) {
-  const part = Array.from({ length: Math.min(1000, extra - i) }, (_, k) => [randomUUID(), businessId, `Extra ${i + k}`]);
+  const part = Array.from({ length: Math.min(1000, extra - i) }, (_, k) => [
+    randomUUID(),
+    businessId,
+    `Extra ${i + k}`,
+  ]);
   const values = part.map((_, k) => `($${k * 3 + 1}, $${k * 3 + 2}, $${k * 3 + 3})`).join(',');
   await client.query(`INSERT INTO customers (id, business_id, name) VALUES ${values}`, part.flat());
 }
@@ -74,7 +92,15 @@ const pullSeconds = (performance.now() - t0) / 1000;
 
 const pushRate = N / pushSeconds;
 const rawRate = N / rawSeconds;
-console.log(`push:      ${N} mutations in ${pushSeconds.toFixed(2)} s = ${pushRate.toFixed(0)} mutations/s (${BATCH} per request)`);
-console.log(`raw:       ${N} rows in ${rawSeconds.toFixed(2)} s = ${rawRate.toFixed(0)} rows/s (100 per INSERT)`);
-console.log(`ratio:     push is ${((100 * pushRate) / rawRate).toFixed(1)} % of raw insert throughput (goal ≥ 25 %)`);
-console.log(`pull:      ${pulled} rows in ${pages} pages in ${pullSeconds.toFixed(2)} s (server side, goal for pull+apply < 3 s)`);
+console.log(
+  `push:      ${N} mutations in ${pushSeconds.toFixed(2)} s = ${pushRate.toFixed(0)} mutations/s (${BATCH} per request)`,
+);
+console.log(
+  `raw:       ${N} rows in ${rawSeconds.toFixed(2)} s = ${rawRate.toFixed(0)} rows/s (100 per INSERT)`,
+);
+console.log(
+  `ratio:     push is ${((100 * pushRate) / rawRate).toFixed(1)} % of raw insert throughput (goal ≥ 25 %)`,
+);
+console.log(
+  `pull:      ${pulled} rows in ${pages} pages in ${pullSeconds.toFixed(2)} s (server side, goal for pull+apply < 3 s)`,
+);
