@@ -97,6 +97,32 @@ describe('customers, vehicles and jobs', () => {
     expect(stale.body.details.currentVersion).toBeGreaterThan(v);
   });
 
+  it('of two concurrent writes made against the same version, exactly one wins', async () => {
+    const { jobId } = await makeJob(app, owner);
+    const current = await http(app)
+      .get(`/api/jobs/${jobId}`)
+      .auth(owner.accessToken, bearer)
+      .expect(200);
+    const v = String(current.body.version);
+    const attempts = await Promise.all(
+      ['first note', 'second note', 'third note'].map((notes) =>
+        http(app)
+          .patch(`/api/jobs/${jobId}`)
+          .auth(owner.accessToken, bearer)
+          .set('If-Match', `"${v}"`)
+          .send({ notes }),
+      ),
+    );
+    const statuses = attempts.map((r) => r.status).sort();
+    expect(statuses).toEqual([200, 409, 409]);
+    const winner = attempts.find((r) => r.status === 200)!;
+    const after = await http(app)
+      .get(`/api/jobs/${jobId}`)
+      .auth(owner.accessToken, bearer)
+      .expect(200);
+    expect(after.body.notes).toBe(winner.body.notes);
+  });
+
   it('every write bumps the version from one sequence', async () => {
     const { jobId } = await makeJob(app, owner);
     const before = await http(app)
