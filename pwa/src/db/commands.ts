@@ -447,13 +447,15 @@ export const COMMANDS: Registry = {
       if (await exists(store, 'chip_layers', a.id)) return;
       const chip = await mustGet(store, 'chips', a.chipId, 'Chip');
       await openJob(store, chip.jobId);
-      await productOfKind(store, a.productId, PRODUCT_KINDS.touchUp);
+      // A layer without its own product is of the chip's paint.
+      const productId = a.productId ?? chip.productId;
+      await productOfKind(store, productId, PRODUCT_KINDS.touchUp);
       await store.put('chip_layers', {
         ...newRowBase(a.id, ctx),
         jobId: chip.jobId,
         chipId: a.chipId,
         appliedAt: a.appliedAt ?? iso(ctx.atMs),
-        productId: a.productId ?? null,
+        productId,
         appliedBy: ctx.userId,
       });
     },
@@ -609,11 +611,26 @@ export const COMMANDS: Registry = {
     prepare: withTime('takenAt'),
     async apply(store, a, ctx) {
       if (await exists(store, 'photos', a.id)) return;
-      if (a.jobId) await mustGet(store, 'jobs', a.jobId, 'Job');
+      let vehicleId = a.vehicleId ?? null;
+      if (a.jobId) {
+        const job = await mustGet(store, 'jobs', a.jobId, 'Job');
+        if (vehicleId && vehicleId !== job.vehicleId) {
+          throw new CommandRefusedError(
+            'vehicle-not-of-job',
+            'That vehicle is not the one on this job',
+          );
+        }
+        vehicleId = job.vehicleId;
+      } else if (!vehicleId) {
+        throw new CommandRefusedError(
+          'validation-failed',
+          'Give the jobId or the vehicleId the photo belongs to',
+        );
+      }
       await store.put('photos', {
         ...newRowBase(a.id, ctx),
         jobId: a.jobId ?? null,
-        vehicleId: a.vehicleId ?? null,
+        vehicleId,
         subjectType: a.subjectType ?? null,
         subjectId: a.subjectId ?? null,
         kind: a.kind,

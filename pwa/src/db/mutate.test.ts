@@ -283,6 +283,7 @@ describe('images', () => {
     const data = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 1, 2, 3]);
     const entry = await attachPhoto(db, {
       id: 'ph-1',
+      vehicleId: aVehicleRow().id,
       kind: 'before',
       data,
       mime: 'image/png',
@@ -293,6 +294,22 @@ describe('images', () => {
     expect(sha).toMatch(/^[0-9a-f]{64}$/);
     expect(entry.args).toMatchObject({ sha256: sha, bytes: 7, mime: 'image/png' });
     expect(await db.blobs.get(sha)).toMatchObject({ state: 'pending', size: 7, tries: 0 });
+  });
+
+  it("files a job's photo under the job's vehicle, as the server does", async () => {
+    await bookJob();
+    const entry = await attachPhoto(db, {
+      id: 'b7a6c5d4-e3f2-4a1b-9c8d-7e6f5a4b3c2d',
+      jobId,
+      kind: 'damage',
+      data: new Uint8Array([1, 2, 3]),
+      mime: 'image/jpeg',
+      width: 1,
+      height: 1,
+    });
+    expect((await db.rows('photos').get(entry.args.id as string))?.vehicleId).toBe(
+      aVehicleRow().id,
+    );
   });
 
   it('hashes the canonical JSON of the signed record (key order does not matter)', async () => {

@@ -6,7 +6,15 @@ import { attachPhoto, sha256Hex } from '../db/images';
 import type { DbOwner, LocalDb } from '../db/localDb';
 import { mutate } from '../db/mutate';
 import { FakeSyncServer } from '../test/fakeSyncServer';
-import { aCustomerRow, aHelper, anOwner, freshIndexedDb, openTestDb, T0 } from '../test/localDb';
+import {
+  aCustomerRow,
+  aHelper,
+  anOwner,
+  aVehicleRow,
+  freshIndexedDb,
+  openTestDb,
+  T0,
+} from '../test/localDb';
 import { MemoryStorage } from '../test/memoryStorage';
 import { aSession } from '../test/sessions';
 import { SyncEngine, type SyncLock } from './engine';
@@ -42,6 +50,7 @@ let server: FakeSyncServer;
 beforeEach(() => {
   server = new FakeSyncServer(anOwner);
   server.seed('customers', aCustomerRow());
+  server.seed('vehicles', aVehicleRow());
 });
 afterEach(async () => {
   for (const e of engines.splice(0)) await e.stop();
@@ -149,6 +158,7 @@ describe('SyncEngine', () => {
     const bytes = new Uint8Array([0xff, 0xd8, 0xff, 0xe0, 9, 8, 7, 6]);
     await attachPhoto(db, {
       id: ids.c,
+      vehicleId: aVehicleRow().id,
       kind: 'before',
       data: bytes,
       mime: 'image/jpeg',
@@ -195,6 +205,7 @@ describe('SyncEngine', () => {
     engines.push(engine);
     await attachPhoto(db, {
       id: ids.c,
+      vehicleId: aVehicleRow().id,
       kind: 'damage',
       data: new Uint8Array([1, 2, 3]),
       mime: 'image/png',
@@ -217,9 +228,11 @@ describe('SyncEngine', () => {
     const engine = engineFor(db, transportFor(server));
     engines.push(engine);
     expect(await engine.syncNow()).toBe(true);
-    expect(server.calls).toEqual(['pull 0', 'pull 2']);
+    // 4 customers and a vehicle, 2 rows a page.
+    expect(server.calls).toEqual(['pull 0', 'pull 2', 'pull 4']);
     expect(await db.rows('customers').count()).toBe(4);
-    expect(await db.getMeta('cursor')).toBe(4);
+    expect(await db.rows('vehicles').count()).toBe(1);
+    expect(await db.getMeta('cursor')).toBe(5);
   });
 
   it("drops a job the helper was taken off when the server's scope changes", async () => {

@@ -39,17 +39,18 @@ export function SyncBadge() {
   const [open, setOpen] = useState(false);
   return (
     <>
-      <button
-        type="button"
-        className="pp-sync-button"
-        aria-haspopup="dialog"
-        onClick={() => setOpen(true)}
-      >
-        <span className={`pp-sync pp-sync--${tone}`} role="status">
+      {/* The live region wraps the button, so a change of words is announced. */}
+      <span role="status">
+        <button
+          type="button"
+          className={`pp-sync pp-sync--${tone} pp-sync-button`}
+          aria-haspopup="dialog"
+          onClick={() => setOpen(true)}
+        >
           <IonIcon icon={icon} aria-hidden="true" />
           <span>{words}</span>
-        </span>
-      </button>
+        </button>
+      </span>
       <SyncSheet isOpen={open} onClose={() => setOpen(false)} />
     </>
   );
