@@ -130,6 +130,17 @@ describe('sync push and pull', () => {
       .expect(200);
     expect(unknown.body.results[0]).toMatchObject({ status: 'rejected', code: 'unknown-command' });
     expect(unknown.body.lastMutationId).toBe(6);
+
+    // The answer to that push was lost: the retry gets the same refusal, not a bare "skipped".
+    const retried = await http(app)
+      .post('/api/sync/push')
+      .auth(owner.accessToken, bearer)
+      .send({ clientId, mutations: [bad, good] })
+      .expect(200);
+    expect(retried.body.results).toEqual([
+      expect.objectContaining({ id: 4, status: 'rejected', code: 'stage-not-allowed' }),
+      { id: 5, status: 'skipped' },
+    ]);
   });
 
   it('pulls new rows with tombstones, by version cursor, and pages without losing any', async () => {

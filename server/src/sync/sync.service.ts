@@ -98,7 +98,7 @@ export class SyncService {
         const outcomes: MutationOutcome[] = [];
         for (const mutation of chunk) {
           if (mutation.id <= last) {
-            outcomes.push({ id: mutation.id, status: 'skipped' });
+            outcomes.push(await this.earlierOutcome(m, dto.clientId, mutation.id));
             continue;
           }
           outcomes.push(await this.applyOne(m, actor, dto.clientId, mutation));
@@ -113,6 +113,26 @@ export class SyncService {
       lastMutationId = done.last;
     }
     return { lastMutationId, results, serverTime: Date.now() };
+  }
+
+  /**
+   * A mutation dealt with before (a retried push): `skipped` if it was applied, or its
+   * refusal again — so a device whose answer was lost still learns why.
+   */
+  private async earlierOutcome(
+    m: EntityManager,
+    clientId: string,
+    id: number,
+  ): Promise<MutationOutcome> {
+    const refused = await m.findOne(SyncRejection, { where: { clientId, mutationId: id } });
+    if (!refused) return { id, status: 'skipped' };
+    return {
+      id,
+      status: 'rejected',
+      code: refused.code,
+      message: refused.message,
+      ...(refused.details !== null ? { details: refused.details } : {}),
+    };
   }
 
   private async applyOne(
