@@ -1,0 +1,103 @@
+import { IonButton, IonContent, IonHeader, IonModal, IonToolbar } from '@ionic/react';
+import { useState } from 'react';
+import type { PhotoRow } from '@panelpass/shared';
+import { useImageUrl } from './usePhotos';
+import './photos.css';
+
+const KIND_WORDS: Record<string, string> = {
+  before: 'Before',
+  after: 'After',
+  damage: 'Damage',
+  other: 'Photo',
+};
+
+export function photoName(photo: PhotoRow): string {
+  const at = new Date(photo.takenAt);
+  const time = Number.isNaN(at.getTime())
+    ? ''
+    : ` at ${at.toLocaleTimeString(undefined, { hour: '2-digit', minute: '2-digit' })}`;
+  return `${KIND_WORDS[photo.kind] ?? 'Photo'} photo${time}${photo.caption ? `: ${photo.caption}` : ''}`;
+}
+
+/** One photo as kept on the phone, or words saying it is on the server only. */
+export function PhotoImage({ photo, className }: { photo: PhotoRow; className?: string }) {
+  const url = useImageUrl(photo.sha256);
+  if (url === undefined)
+    return <span className={`${className ?? ''} pp-photo--loading`} aria-hidden="true" />;
+  if (url === null) {
+    return (
+      <span
+        className={`${className ?? ''} pp-photo--missing`}
+        role="img"
+        aria-label={photoName(photo)}
+      >
+        On the server
+      </span>
+    );
+  }
+  return (
+    <img
+      className={className}
+      src={url}
+      alt={photoName(photo)}
+      width={photo.width}
+      height={photo.height}
+    />
+  );
+}
+
+/**
+ * A row of thumbnails (scrolls sideways); tap one to see it large. Empty: says so, in
+ * words, so the row never looks broken.
+ */
+export function PhotoStrip({
+  photos,
+  label,
+  empty = 'No photos yet.',
+}: {
+  photos: readonly PhotoRow[] | undefined;
+  /** What the row shows, for screen readers ("Before photos"). */
+  label: string;
+  empty?: string;
+}) {
+  const [open, setOpen] = useState<PhotoRow | null>(null);
+  if (!photos) return null;
+  if (photos.length === 0) return <p className="pp-photo-strip__empty">{empty}</p>;
+  return (
+    <>
+      <ul className="pp-photo-strip" aria-label={label}>
+        {photos.map((photo) => (
+          <li key={photo.id}>
+            <button
+              type="button"
+              className="pp-photo-strip__thumb"
+              aria-label={`Open ${photoName(photo)}`}
+              onClick={() => setOpen(photo)}
+            >
+              <PhotoImage photo={photo} className="pp-photo-strip__img" />
+            </button>
+          </li>
+        ))}
+      </ul>
+      <IonModal isOpen={open !== null} onDidDismiss={() => setOpen(null)} aria-label="Photo">
+        <IonHeader>
+          <IonToolbar>
+            <div className="pp-header">
+              <h2 className="pp-header__title">{open ? photoName(open) : 'Photo'}</h2>
+              <IonButton className="pp-signout" fill="clear" onClick={() => setOpen(null)}>
+                Close
+              </IonButton>
+            </div>
+          </IonToolbar>
+        </IonHeader>
+        <IonContent>
+          {open ? (
+            <div className="pp-photo-view">
+              <PhotoImage photo={open} className="pp-photo-view__img" />
+            </div>
+          ) : null}
+        </IonContent>
+      </IonModal>
+    </>
+  );
+}
