@@ -9,6 +9,7 @@ export * from './gloss';
 export * from './panels';
 export * from './pricing';
 export * from './dilution';
+export * from './route'; // drive time between stops
 export * from './jobs'; // stages, child ids, checklists, amount due (keep: used by server and pwa)
 export * from './records';
 export * from './sync'; // the device ↔ server protocol (keep)
