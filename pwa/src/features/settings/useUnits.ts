@@ -1,0 +1,52 @@
+import { useQuery } from '@tanstack/react-query';
+import { useEffect, useMemo } from 'react';
+import { apiClient } from '../../app/services';
+import { useSession } from '../auth/hooks/useSession';
+import { businessQuery } from './api/businessApi';
+import {
+  DEFAULT_FIELD_SETTINGS,
+  keepSettings,
+  readFieldSettings,
+  readKeptSettings,
+  unitsView,
+  type UnitsView,
+} from './model/units';
+
+function storage(): Storage | null {
+  try {
+    return typeof window === 'undefined' ? null : window.localStorage;
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * The business's units (µm or mil, °C or °F), default waits and drive-time factors, with the
+ * conversions and formatters every field screen uses. From the server when there is a
+ * signal; the last answer is kept on the phone, so it holds offline; µm and °C (and the
+ * other defaults) until the owner's settings have been seen once. A helper is given no
+ * settings by the server and works with the defaults.
+ */
+export function useUnits(): UnitsView {
+  const user = useSession()?.user ?? null;
+  const businessId = user?.businessId ?? '';
+  const isOwner = user?.role === 'owner';
+  const { data } = useQuery({
+    ...businessQuery(apiClient, businessId),
+    enabled: businessId !== '' && isOwner,
+  });
+  // TanStack Query keeps `data` the same object until the answer changes.
+  const fresh = useMemo(() => (data === undefined ? null : readFieldSettings(data)), [data]);
+
+  useEffect(() => {
+    const store = storage();
+    if (fresh && store && businessId) keepSettings(store, businessId, fresh);
+  }, [fresh, businessId]);
+
+  return useMemo(() => {
+    if (fresh) return unitsView(fresh, 'server');
+    const store = storage();
+    const kept = store && businessId && isOwner ? readKeptSettings(store, businessId) : null;
+    return kept ? unitsView(kept, 'kept') : unitsView(DEFAULT_FIELD_SETTINGS, 'defaults');
+  }, [fresh, businessId, isOwner]);
+}
