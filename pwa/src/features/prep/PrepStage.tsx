@@ -9,10 +9,11 @@ import { SolventCard } from './components/SolventCard';
 import { SolventSheet } from './components/SolventSheet';
 import { BottomBar } from './kit/BottomBar';
 import { Checklist } from './kit/Checklist';
-import { StageCautions } from './kit/StageCautions';
+import { ProductCautions } from './kit/ProductCautions';
 import { useServerNow } from './kit/useServerNow';
-import { useJobClimate, useProductsOfKinds } from './kit/useStageData';
-import { useStageUnits } from './kit/useStageUnits';
+import { useProductsOfKinds } from './kit/useStageData';
+import { useUnits } from '../settings/useUnits';
+import { useLatestClimate } from '../climate/hooks/useLatestClimate';
 import { useUndo } from './kit/useUndo';
 import './kit/stageKit.css';
 
@@ -36,14 +37,14 @@ export function solventOrder(a: SolventApplicationRow, b: SolventApplicationRow)
 export default function PrepStage({ jobId }: StageScreenProps) {
   const { changes } = useChanges();
   const nowMs = useServerNow(1000);
-  const units = useStageUnits();
+  const units = useUnits();
   const panels = useJobRows('job_panels', jobId, 'position') ?? [];
   const solventRows = useJobRows('solvent_applications', jobId);
   const maskRows = useJobRows('masking_items', jobId, 'appliedAt');
   const solvents = useProductsOfKinds(SOLVENT_KINDS) ?? [];
   const tapes = useProductsOfKinds(TAPE_KINDS) ?? [];
   const allProducts = useProductsOfKinds([...SOLVENT_KINDS, ...TAPE_KINDS]) ?? [];
-  const { latest } = useJobClimate(jobId);
+  const latest = useLatestClimate(jobId);
   const undo = useUndo();
   const [sheet, setSheet] = useState<'solvent' | 'mask' | null>(null);
 
@@ -103,7 +104,7 @@ export default function PrepStage({ jobId }: StageScreenProps) {
             onFlushed={() => flushed(app)}
           />
         ))}
-        <StageCautions
+        <ProductCautions
           kind="solvent"
           products={(usedSolvents.length ? usedSolvents : solvents).map((p) => ({
             name: p.name,

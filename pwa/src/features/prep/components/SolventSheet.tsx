@@ -6,7 +6,7 @@ import { useChanges } from '../../../sync/useChanges';
 import { ChoiceField, SelectField } from '../kit/fields';
 import { decimalText, parseDecimal } from '../kit/numbers';
 import { Sheet } from '../kit/Sheet';
-import { StageCautions } from '../kit/StageCautions';
+import { ProductCautions } from '../kit/ProductCautions';
 import { clockTime } from '../kit/time';
 import type { StageUnits } from '../kit/units';
 import { panelTempC } from '../kit/useStageData';
@@ -153,7 +153,7 @@ export function SolventSheet({
           {preview.reasons.map((r) => ` ${r.message}`).join('')}
         </Notice>
       ) : null}
-      <StageCautions
+      <ProductCautions
         kind="solvent"
         products={product ? [{ name: product.name, sdsUrl: product.sdsUrl }] : []}
       />

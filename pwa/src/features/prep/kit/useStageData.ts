@@ -1,6 +1,6 @@
 import { useLiveQuery } from 'dexie-react-hooks';
 import type { ClimateReadingRow, ProductRow } from '@panelpass/shared';
-import { useJobRows, useLocalDb } from '../../../db/hooks';
+import { useLocalDb } from '../../../db/hooks';
 
 /** Products on the Shelf of any of these kinds, by name (undefined while loading). */
 export function useProductsOfKinds(kinds: readonly string[]): ProductRow[] | undefined {
@@ -11,15 +11,6 @@ export function useProductsOfKinds(kinds: readonly string[]): ProductRow[] | und
     const rows = await db.rows('products').where('kind').anyOf(key.split('|')).toArray();
     return rows.sort((a, b) => a.name.localeCompare(b.name));
   }, [db, key]);
-}
-
-/** A job's climate entries, oldest first, and the latest one (null when there is none). */
-export function useJobClimate(jobId: string): {
-  readings: ClimateReadingRow[] | undefined;
-  latest: ClimateReadingRow | null | undefined;
-} {
-  const readings = useJobRows('climate_readings', jobId, 'takenAt');
-  return { readings, latest: readings === undefined ? undefined : (readings.at(-1) ?? null) };
 }
 
 /** The temperature of a climate entry a panel is at: its surface reading, else the air's. */
