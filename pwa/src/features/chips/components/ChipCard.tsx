@@ -74,19 +74,20 @@ export function ChipCard({
         {words ? <StateTag tone={words.tone} words={words.tag} /> : null}
       </div>
       <p className="pp-card__meta">
-        {chip.sizeMm} mm · {paint?.name ?? 'no paint named'} · {layersDone} of {chip.layersPlanned}{' '}
-        layers on
+        {chip.sizeMm} mm · {paint?.name ?? 'no paint named'}
       </p>
-      <ol className="pp-layers" aria-label="Layers">
-        {Array.from({ length: Math.max(chip.layersPlanned, layersDone) }, (_, i) => (
-          <li key={i} className={i < layersDone ? 'pp-layers__on' : undefined}>
-            <span aria-hidden="true">{i < layersDone ? '■' : '□'}</span>
-            <span className="pp-stage-sr">
-              Layer {i + 1} {i < layersDone ? 'on' : 'to go'}
-            </span>
-          </li>
-        ))}
-      </ol>
+      <div className="pp-chip__layers">
+        <ol className="pp-layers" aria-hidden="true">
+          {Array.from({ length: Math.max(chip.layersPlanned, layersDone) }, (_, i) => (
+            <li key={i} className={i < layersDone ? 'pp-layers__on' : undefined}>
+              {i < layersDone ? '■' : '□'}
+            </li>
+          ))}
+        </ol>
+        <span>
+          {layersDone} of {chip.layersPlanned} layers on
+        </span>
+      </div>
       {words ? (
         <>
           <p className="pp-chip__headline">{words.headline}</p>

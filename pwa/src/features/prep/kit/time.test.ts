@@ -11,7 +11,7 @@ describe('times in words', () => {
 
   it('adds the day only when it is not today, and says "tomorrow"', () => {
     expect(dayAndTime(T, T - 60_000, 'en-GB')).toBe('14:32');
-    expect(dayAndTime(T + 86_400_000, T, 'en-GB')).toBe('tomorrow, 14:32');
+    expect(dayAndTime(T + 86_400_000, T, 'en-GB')).toBe('14:32 tomorrow');
     expect(dayAndTime(T + 3 * 86_400_000, T, 'en-GB')).toBe('Mon 18 May, 14:32');
   });
 

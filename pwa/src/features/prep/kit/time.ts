@@ -14,18 +14,21 @@ export function clockTime(ms: number, locale?: string): string {
   return new Date(ms).toLocaleTimeString(locale, { hour: 'numeric', minute: '2-digit' });
 }
 
-/** The time, with the day when it is not the same day as `nowMs`: "Fri 16 May, 14:05". */
+/**
+ * The time, with the day when it is not the same day as `nowMs`: "14:05", "14:05 tomorrow",
+ * "Fri 16 May, 14:05".
+ */
 export function dayAndTime(ms: number, nowMs: number, locale?: string): string {
   const at = new Date(ms);
   if (at.toDateString() === new Date(nowMs).toDateString()) return clockTime(ms, locale);
-  const tomorrow = new Date(nowMs + DAY).toDateString() === at.toDateString();
-  const day = tomorrow
-    ? 'tomorrow'
-    : at.toLocaleDateString(locale, { weekday: 'short', day: 'numeric', month: 'short' });
+  if (new Date(nowMs + DAY).toDateString() === at.toDateString()) {
+    return `${clockTime(ms, locale)} tomorrow`;
+  }
+  const day = at.toLocaleDateString(locale, { weekday: 'short', day: 'numeric', month: 'short' });
   return `${day}, ${clockTime(ms, locale)}`;
 }
 
-/** "at 14:05" today, else "Fri 16 May, 14:05" (after a verb: "Removed at 14:05"). */
+/** "at 14:05" today, else "14:05 tomorrow" or "Fri 16 May, 14:05" (after a verb). */
 export function atWords(ms: number, nowMs: number, locale?: string): string {
   const sameDay = new Date(ms).toDateString() === new Date(nowMs).toDateString();
   return sameDay ? `at ${clockTime(ms, locale)}` : dayAndTime(ms, nowMs, locale);

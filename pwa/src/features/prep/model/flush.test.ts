@@ -15,6 +15,12 @@ describe('flushView — the flush countdown in words', () => {
     expect(v.words).toBe('2 min 41 s left');
   });
 
+  it('the clock and the words agree on the seconds (both rounded up)', () => {
+    const v = flushView({ flushBy: iso(T + 160_500), flushedAt: null }, T);
+    expect(v.clock).toBe('2:41');
+    expect(v.words).toBe('2 min 41 s left');
+  });
+
   it('in the last minute it says to flush now, in the stop tone', () => {
     const v = flushView({ flushBy: iso(T + 40_000), flushedAt: null }, T);
     expect(v).toMatchObject({ state: 'due-soon', tag: 'Flush now', clock: '0:40', tone: 'stop' });

@@ -45,6 +45,8 @@ export function flushView(
     flushedAtMs,
   });
   const by = `Flush by ${clockTime(flushByMs, locale)}`;
+  // Whole seconds, rounded up as the clock shows them, so the words and the clock agree.
+  const left = Math.ceil(status.remainingMs / 1000) * 1000;
   switch (status.state) {
     case 'running':
       return {
@@ -52,7 +54,7 @@ export function flushView(
         headline: by,
         clock: countdown(status.remainingMs),
         tag: 'Running',
-        words: `${durationWords(status.remainingMs)} left`,
+        words: `${durationWords(left)} left`,
         tone: 'wait',
       };
     case 'due-soon':
@@ -61,7 +63,7 @@ export function flushView(
         headline: by,
         clock: countdown(status.remainingMs),
         tag: 'Flush now',
-        words: `Flush now: ${durationWords(status.remainingMs)} left`,
+        words: `Flush now: ${durationWords(left)} left`,
         tone: 'stop',
       };
     case 'overdue':
