@@ -18,6 +18,7 @@ import { useUndo } from './kit/useUndo';
 import './kit/stageKit.css';
 
 const SOLVENT_KINDS = ['solvent'];
+const BAR_ID = 'pp-prep-actions';
 const TAPE_KINDS = ['tape'];
 
 /** Open flushes first (the nearest deadline on top), then the flushed ones, latest first. */
@@ -45,7 +46,7 @@ export default function PrepStage({ jobId }: StageScreenProps) {
   const tapes = useProductsOfKinds(TAPE_KINDS) ?? [];
   const allProducts = useProductsOfKinds([...SOLVENT_KINDS, ...TAPE_KINDS]) ?? [];
   const latest = useLatestClimate(jobId);
-  const undo = useUndo();
+  const undo = useUndo(BAR_ID);
   const [sheet, setSheet] = useState<'solvent' | 'mask' | null>(null);
 
   const panelLabel = (id: string | null) => panels.find((p) => p.id === id)?.label ?? null;
@@ -62,16 +63,22 @@ export default function PrepStage({ jobId }: StageScreenProps) {
   function flushed(app: SolventApplicationRow) {
     const at = new Date(nowMs).toISOString();
     const name = productOf(app.productId)?.name ?? 'Solvent';
-    undo.offer(`solvent:${app.id}`, `${name} marked flushed.`, () => {
-      void changes.flushSolvent({ id: app.id, at });
-    });
+    undo.offer(
+      `solvent:${app.id}`,
+      `${name} marked flushed.`,
+      () => void changes.flushSolvent({ id: app.id, at }),
+      nowMs,
+    );
   }
 
   function removed(id: string, what: string) {
     const at = new Date(nowMs).toISOString();
-    undo.offer(`mask:${id}`, `${what}: marked removed.`, () => {
-      void changes.removeMask({ id, at });
-    });
+    undo.offer(
+      `mask:${id}`,
+      `${what}: marked removed.`,
+      () => void changes.removeMask({ id, at }),
+      nowMs,
+    );
   }
 
   return (
@@ -100,7 +107,7 @@ export default function PrepStage({ jobId }: StageScreenProps) {
             panelLabel={panelLabel(app.panelId)}
             nowMs={nowMs}
             units={units}
-            flushedWaiting={undo.waiting.has(`solvent:${app.id}`)}
+            flushedWaitingAt={undo.waiting.get(`solvent:${app.id}`) ?? null}
             onFlushed={() => flushed(app)}
           />
         ))}
@@ -132,13 +139,13 @@ export default function PrepStage({ jobId }: StageScreenProps) {
             panelLabel={panelLabel(item.panelId)}
             tapeName={productOf(item.productId)?.name ?? null}
             nowMs={nowMs}
-            removedWaiting={undo.waiting.has(`mask:${item.id}`)}
+            removedWaitingAt={undo.waiting.get(`mask:${item.id}`) ?? null}
             onRemoved={() => removed(item.id, item.what)}
           />
         ))}
       </section>
 
-      <BottomBar label="Prep actions">
+      <BottomBar label="Prep actions" id={BAR_ID}>
         <button type="button" className="pp-button" onClick={() => setSheet('solvent')}>
           Solvent on
         </button>

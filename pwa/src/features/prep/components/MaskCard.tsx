@@ -8,18 +8,22 @@ export function MaskCard({
   panelLabel,
   tapeName,
   nowMs,
-  removedWaiting,
+  removedWaitingAt,
   onRemoved,
 }: {
   item: MaskingItemRow;
   panelLabel: string | null;
   tapeName: string | null;
   nowMs: number;
-  removedWaiting: boolean;
+  /** The removal is waiting behind its Undo (tapped at this time). */
+  removedWaitingAt: number | null;
   onRemoved: () => void;
 }) {
-  const shown = removedWaiting ? { ...item, removedAt: new Date(nowMs).toISOString() } : item;
-  const view = maskView(shown, nowMs);
+  const shown =
+    removedWaitingAt !== null
+      ? { ...item, removedAt: new Date(removedWaitingAt).toISOString() }
+      : item;
+  const view = maskView(shown, Math.max(nowMs, removedWaitingAt ?? nowMs));
   const titleId = `pp-mask-${item.id}`;
   return (
     <article className={`pp-card pp-card--${view.tone}`} aria-labelledby={titleId}>

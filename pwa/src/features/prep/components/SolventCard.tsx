@@ -13,7 +13,7 @@ export function SolventCard({
   panelLabel,
   nowMs,
   units,
-  flushedWaiting,
+  flushedWaitingAt,
   onFlushed,
 }: {
   app: SolventApplicationRow;
@@ -21,12 +21,15 @@ export function SolventCard({
   panelLabel: string | null;
   nowMs: number;
   units: StageUnits;
-  /** The flush is waiting behind its Undo: show it as flushed already. */
-  flushedWaiting: boolean;
+  /** The flush is waiting behind its Undo (tapped at this time): show it as flushed. */
+  flushedWaitingAt: number | null;
   onFlushed: () => void;
 }) {
-  const shown = flushedWaiting ? { ...app, flushedAt: new Date(nowMs).toISOString() } : app;
-  const view = flushView(shown, nowMs);
+  const shown =
+    flushedWaitingAt !== null
+      ? { ...app, flushedAt: new Date(flushedWaitingAt).toISOString() }
+      : app;
+  const view = flushView(shown, Math.max(nowMs, flushedWaitingAt ?? nowMs));
   const name = product?.name ?? 'Solvent';
   const why = flushWhy(
     {

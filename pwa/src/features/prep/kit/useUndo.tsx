@@ -8,17 +8,20 @@ interface Pending {
   key: string;
   message: string;
   commit: () => void;
+  atMs: number;
 }
 
 /**
  * A change that cannot be taken back once recorded ("Flushed", "Removed") is held for six
  * seconds behind an Undo toast, then recorded with the time of the tap. Leaving the screen
- * records it at once; a second change records the first.
+ * records it at once; a second change records the first. The toast sits just above the
+ * element `anchorId` (the stage's bottom bar), so it never covers a main action.
  */
-export function useUndo(): {
-  offer: (key: string, message: string, commit: () => void) => void;
-  /** Keys of changes waiting behind the toast (show them as done already). */
-  waiting: ReadonlySet<string>;
+export function useUndo(anchorId?: string): {
+  /** Holds a change behind the Undo; `atMs` is the time of the tap it will be recorded with. */
+  offer: (key: string, message: string, commit: () => void, atMs: number) => void;
+  /** Changes waiting behind the toast, by key, with the time of the tap (show them as done). */
+  waiting: ReadonlyMap<string, number>;
   toast: ReactNode;
 } {
   const [pending, setPending] = useState<Pending | null>(null);
@@ -32,9 +35,9 @@ export function useUndo(): {
   }, []);
 
   const offer = useCallback(
-    (key: string, message: string, commit: () => void) => {
+    (key: string, message: string, commit: () => void, atMs: number) => {
       if (ref.current) settle(true);
-      const next = { key, message, commit };
+      const next = { key, message, commit, atMs };
       ref.current = next;
       setPending(next);
     },
@@ -43,13 +46,14 @@ export function useUndo(): {
 
   useEffect(() => () => ref.current?.commit(), []);
 
-  const waiting = new Set(pending ? [pending.key] : []);
+  const waiting = new Map(pending ? [[pending.key, pending.atMs]] : []);
   const toast = (
     <IonToast
       isOpen={pending !== null}
       message={pending?.message}
       duration={UNDO_MS}
       position="bottom"
+      {...(anchorId ? { positionAnchor: anchorId } : {})}
       cssClass="pp-undo"
       buttons={[{ text: 'Undo', role: 'cancel', handler: () => settle(false) }]}
       onDidDismiss={(e) => {
