@@ -1,12 +1,35 @@
-import { EmptyState } from '../components/EmptyState';
+import { IonPage, IonRouterOutlet } from '@ionic/react';
+import { lazy, Suspense } from 'react';
+import { Route } from 'react-router-dom';
+import { lazyPage } from '../app/lazyPage';
 import { TabPage } from '../features/shell/components/TabPage';
 
-export default function JobsPage() {
+const JobsList = lazy(() => import('../features/jobs/JobsList'));
+const JobWorkspacePage = lazyPage(() => import('../features/workspace/JobWorkspacePage'));
+
+/** The list of jobs, in the Jobs tab's page. */
+function JobsListPage() {
   return (
     <TabPage title="Jobs">
-      <EmptyState title="No jobs yet">
-        <p>Booked and finished jobs are listed here, newest first.</p>
-      </EmptyState>
+      <Suspense fallback={<div className="pp-loading" aria-busy="true" />}>
+        <JobsList />
+      </Suspense>
     </TabPage>
+  );
+}
+
+/**
+ * The Jobs tab: `/jobs` lists every visit, `/jobs/:id` opens one job's workspace. The tab's
+ * route is `/jobs/*`, so these paths are relative to it; both work as deep links and after
+ * a reload.
+ */
+export default function JobsPage() {
+  return (
+    <IonPage>
+      <IonRouterOutlet>
+        <Route index element={<JobsListPage />} />
+        <Route path=":id" element={<JobWorkspacePage />} />
+      </IonRouterOutlet>
+    </IonPage>
   );
 }
