@@ -52,8 +52,7 @@ export function BudgetBar({
         <span style={{ width: `${now.reservePct}%` }}>reserve</span>
       </span>
       <span className="pp-budget__words">
-        {proposed ? 'After this pass: ' : ''}
-        {words}
+        {proposed ? `After this pass: ${words.charAt(0).toLowerCase()}${words.slice(1)}` : words}
       </span>
     </span>
   );

@@ -88,10 +88,11 @@ export function PassForm({
         label="Product"
         value={draft.productId}
         emptyLabel="No product"
-        options={products.map((p) => ({
-          value: p.id,
-          label: `${p.name} (${KIND_WORDS[p.kind] ?? p.kind})`,
-        }))}
+        options={products.map((p) => {
+          const kind = KIND_WORDS[p.kind] ?? p.kind;
+          const named = p.name.toLowerCase().includes(kind);
+          return { value: p.id, label: named ? p.name : `${p.name} (${kind})` };
+        })}
         onChange={(id) => {
           const kind = products.find((p) => p.id === id)?.kind;
           const step = kind ? stepForProductKind(kind) : null;
