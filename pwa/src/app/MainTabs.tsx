@@ -10,6 +10,7 @@ import { QueryClientProvider } from '@tanstack/react-query';
 import { Route } from 'react-router-dom';
 import { useCurrentUser } from '../features/auth/hooks/useCurrentUser';
 import { tabsForRole, type TabId } from '../features/shell/model/access';
+import { TimerDock } from '../features/timers/components/TimerDock';
 import { SyncProvider } from '../sync/SyncProvider';
 import { lazyPage } from './lazyPage';
 import { queryClient } from './queryClient';
@@ -56,6 +57,8 @@ function SignedInTabs() {
           return <Route key={tab.id} path={`${tab.path}/*`} element={<Page />} />;
         })}
       </IonRouterOutlet>
+      {/* Alarms and the timer strip, above the tab bar (ion-tabs' bottom slot). */}
+      {user ? <TimerDock slot="bottom" /> : null}
       <IonTabBar slot="bottom">
         {visible.map((tab) => (
           <IonTabButton key={tab.id} tab={tab.id} href={tab.path}>

@@ -1,12 +1,11 @@
-import { EmptyState } from '../components/EmptyState';
+import { TodayScreen } from '../features/today/components/TodayScreen';
 import { TabPage } from '../features/shell/components/TabPage';
 
+/** Today: what needs doing, the timers running and the day's visits in order. */
 export default function TodayPage() {
   return (
     <TabPage title="Today">
-      <EmptyState title="No jobs today yet">
-        <p>Today&apos;s cars show up here in order, with the address and the time you are due.</p>
-      </EmptyState>
+      <TodayScreen />
     </TabPage>
   );
 }

@@ -1,0 +1,47 @@
+import { IonIcon } from '@ionic/react';
+import type { TimerRow } from '@panelpass/shared';
+import {
+  KIND_WORDS,
+  kindOf,
+  remainingSpoken,
+  remainingText,
+  timerState,
+} from '../model/timerWords';
+import { KIND_ICONS } from './kindLook';
+
+/**
+ * The strip above the tab bar while a timer runs: the nearest one's kind (word and icon),
+ * what it is for and the time left in big figures, and how many more run. Tap for all.
+ */
+export function TimerStrip({
+  nearest,
+  more,
+  nowMs,
+  onOpen,
+}: {
+  nearest: TimerRow;
+  more: number;
+  nowMs: number;
+  onOpen: () => void;
+}) {
+  const kind = kindOf(nearest);
+  const paused = timerState(nearest, nowMs) === 'paused';
+  const spoken = `${KIND_WORDS[kind]}: ${nearest.label}, ${remainingSpoken(nearest, nowMs)}${more ? `, and ${more} more` : ''}. Show all timers.`;
+  return (
+    <button
+      type="button"
+      className={`pp-strip${paused ? ' pp-strip--paused' : ''}`}
+      aria-haspopup="dialog"
+      aria-label={spoken}
+      onClick={onOpen}
+    >
+      <span className="pp-strip__kind">
+        <IonIcon icon={KIND_ICONS[kind]} aria-hidden="true" />
+        <span>{paused ? `${KIND_WORDS[kind]} · paused` : KIND_WORDS[kind]}</span>
+      </span>
+      <span className="pp-strip__label">{nearest.label || KIND_WORDS[kind]}</span>
+      <span className="pp-strip__time">{remainingText(nearest, nowMs)}</span>
+      {more ? <span className="pp-strip__more">+{more} more</span> : null}
+    </button>
+  );
+}

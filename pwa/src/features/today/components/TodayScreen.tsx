@@ -1,0 +1,70 @@
+import { useMemo } from 'react';
+import { useUnits } from '../../settings/useUnits';
+import { useJobSummaries } from '../../jobs/hooks/useJobSummaries';
+import { jobsOfDay } from '../../jobs/model/jobSummary';
+import { useServerNow } from '../../timers/hooks/useServerClock';
+import { useDueItems } from '../hooks/useDueItems';
+import { DueList } from './DueList';
+import { TimersNow } from './TimersNow';
+import { TodayVisits } from './TodayVisits';
+import './today.css';
+
+const SOURCE_WORDS = {
+  server: 'your settings',
+  kept: 'your settings, as last seen',
+  defaults: 'our defaults until your settings are seen',
+} as const;
+
+/**
+ * The day at a glance: what needs doing now across every job (overdue first), the timers
+ * running, and today's visits in order with the drive between them. Everything is read from
+ * the phone, so it works with no signal.
+ */
+export function TodayScreen() {
+  const units = useUnits();
+  const jobs = useJobSummaries();
+  // Deadlines and chip times move by the minute; the timers section ticks by the second.
+  const now = useServerNow(15_000);
+  const due = useDueItems(now);
+  const visits = useMemo(() => jobsOfDay(jobs ?? [], now), [jobs, now]);
+  const jobWords = useMemo(() => {
+    const byId = new Map(
+      (jobs ?? []).map((j) => [j.job.id, `${j.vehicleName} · ${j.customerName}`]),
+    );
+    return (jobId: string) => byId.get(jobId);
+  }, [jobs]);
+
+  const date = new Date(now).toLocaleDateString(undefined, {
+    weekday: 'long',
+    day: 'numeric',
+    month: 'long',
+  });
+  const count = visits.length;
+
+  return (
+    <div className="pp-today">
+      <p className="pp-today__date">
+        {date} · {count === 0 ? 'no visits' : count === 1 ? '1 visit' : `${count} visits`}
+      </p>
+
+      <section className="pp-today__section" aria-labelledby="pp-today-due">
+        <h2 id="pp-today-due" className="pp-today__heading">
+          Needs doing
+        </h2>
+        {due === undefined ? null : due.length ? (
+          <DueList items={due} jobWords={jobWords} />
+        ) : (
+          <p className="pp-today__none">
+            Nothing overdue or due soon: no flush, masking or chip is waiting on you.
+          </p>
+        )}
+      </section>
+
+      <TimersNow jobWords={jobWords} />
+
+      {jobs === undefined ? null : (
+        <TodayVisits visits={visits} drive={units.drive} driveSource={SOURCE_WORDS[units.source]} />
+      )}
+    </div>
+  );
+}
