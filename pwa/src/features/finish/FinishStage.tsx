@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { TextField } from '../../components/TextField';
 import { useJobRows } from '../../db/hooks';
 import { useChanges } from '../../sync/useChanges';
@@ -41,6 +41,13 @@ export default function FinishStage({ jobId }: StageScreenProps) {
   const [tried, setTried] = useState(false);
   const [saving, setSaving] = useState(false);
   const [armed, setArmed] = useState(false);
+
+  // A second keep-dry timer asks for a second tap, within five seconds.
+  useEffect(() => {
+    if (!armed) return;
+    const t = window.setTimeout(() => setArmed(false), 5000);
+    return () => window.clearTimeout(t);
+  }, [armed]);
 
   // The first protection product on the Shelf until another is picked.
   const product = products.find((p) => p.id === productId) ?? products[0];
@@ -172,7 +179,7 @@ export default function FinishStage({ jobId }: StageScreenProps) {
           onClick={() => void start()}
         >
           {armed
-            ? 'Tap again: start a second keep-dry timer'
+            ? 'Tap again: a second keep-dry timer'
             : hours !== null && !problem
               ? `Start keep-dry: ${hoursWords(hours)}`
               : 'Start keep-dry timer'}
