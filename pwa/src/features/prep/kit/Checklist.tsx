@@ -49,9 +49,13 @@ export function Checklist({
                 icon={item.done ? checkmarkCircle : ellipseOutline}
                 aria-hidden="true"
               />
-              <span className="pp-check__label">{item.label}</span>
-              <span className="pp-check__state" aria-hidden="true">
-                {item.done ? 'Done' : ''}
+              <span className="pp-check__text">
+                <span className="pp-check__label">{item.label}</span>
+                {item.done ? (
+                  <span className="pp-check__state" aria-hidden="true">
+                    Done
+                  </span>
+                ) : null}
               </span>
             </button>
           </li>
