@@ -21,10 +21,13 @@ export function VehicleOutlineDrawing({
   bodyStyle,
   pins,
   description,
+  marked,
   onTap,
 }: {
   bodyStyle: string;
   pins: readonly OutlinePin[];
+  /** Panels to mark (e.g. flagged by the film readings): a thick frame and a "!" corner. */
+  marked?: ReadonlySet<string>;
   /** What the drawing shows, in words (read by screen readers instead of the drawing). */
   description: string;
   onTap?: (at: { x: number; y: number; panelKey: string | null }) => void;
@@ -61,7 +64,12 @@ export function VehicleOutlineDrawing({
           </pattern>
         </defs>
         {outline.regions.map((r, i) => (
-          <Region key={`${r.panelKey ?? r.kind}-${i}`} region={r} glassFill={`url(#${glass})`} />
+          <Region
+            key={`${r.panelKey ?? r.kind}-${i}`}
+            region={r}
+            glassFill={`url(#${glass})`}
+            marked={r.panelKey !== null && (marked?.has(r.panelKey) ?? false)}
+          />
         ))}
         {outline.wheels.map((w, i) => (
           <Wheel key={i} cx={w.cx} cy={w.cy} r={w.r} inward={w.cx < outline.width / 2} />
@@ -79,11 +87,19 @@ export function VehicleOutlineDrawing({
   );
 }
 
-function Region({ region: r, glassFill }: { region: OutlineRegion; glassFill: string }) {
+function Region({
+  region: r,
+  glassFill,
+  marked,
+}: {
+  region: OutlineRegion;
+  glassFill: string;
+  marked: boolean;
+}) {
   return (
     <g>
       <rect
-        className={`pp-outline__region pp-outline__region--${r.kind}`}
+        className={`pp-outline__region pp-outline__region--${r.kind}${marked ? ' pp-outline__region--marked' : ''}`}
         x={r.x}
         y={r.y}
         width={r.w}
@@ -92,6 +108,14 @@ function Region({ region: r, glassFill }: { region: OutlineRegion; glassFill: st
         {...(r.kind === 'glass' ? { fill: glassFill } : {})}
         data-panel={r.panelKey ?? undefined}
       />
+      {marked && r.w >= 10 ? (
+        <g className="pp-outline__mark">
+          <path d={`M${r.x + r.w - 6.5} ${r.y + 7} l3.2 -5.6 l3.2 5.6 Z`} />
+          <text x={r.x + r.w - 3.3} y={r.y + 6.3}>
+            !
+          </text>
+        </g>
+      ) : null}
       {r.label ? (
         <text className="pp-outline__label" x={r.x + r.w / 2} y={r.y + r.h / 2} dy="0.35em">
           {r.label}

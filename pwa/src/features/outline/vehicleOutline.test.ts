@@ -1,6 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { BODY_STYLES, bodyStyleTemplate } from '@panelpass/shared';
-import { panelAt, panelCentre, regionAt, toFraction, vehicleOutline } from './vehicleOutline';
+import {
+  panelAt,
+  panelCentre,
+  pinPlace,
+  regionAt,
+  toFraction,
+  vehicleOutline,
+} from './vehicleOutline';
 
 describe.each(BODY_STYLES)('the %s outline', (style) => {
   const outline = vehicleOutline(style);
@@ -95,5 +102,14 @@ describe('hit-testing details', () => {
     expect(toFraction(0.123456)).toBe(0.1235);
     expect(toFraction(-0.2)).toBe(0);
     expect(toFraction(1.3)).toBe(1);
+  });
+
+  it('draws a pin that lies off its panel at the nearest point inside that panel', () => {
+    const suv = vehicleOutline('suv');
+    const place = pinPlace(suv, 'left-pillars', 0.32, 0.18);
+    expect(panelAt(suv, place.x, place.y)).toBe('left-pillars');
+    const door = panelCentre(suv, 'left-front-door')!;
+    expect(pinPlace(suv, 'left-front-door', door.x, door.y)).toEqual(door);
+    expect(pinPlace(suv, null, 0.01, 0.02)).toEqual({ x: 0.01, y: 0.02 });
   });
 });

@@ -369,3 +369,23 @@ export function panelCentre(
 export function toFraction(v: number): number {
   return Math.round(Math.min(1, Math.max(0, v)) * 10_000) / 10_000;
 }
+
+/**
+ * Where to draw a pin: its own place when that lies on its panel (or it has none); else the
+ * nearest point inside its panel (a pin placed on another drawing or by another app).
+ */
+export function pinPlace(
+  outline: VehicleOutline,
+  panelKey: string | null,
+  fx: number,
+  fy: number,
+): { x: number; y: number } {
+  if (!panelKey || panelAt(outline, fx, fy) === panelKey) return { x: fx, y: fy };
+  const r = outline.regions.find((region) => region.panelKey === panelKey);
+  if (!r) return { x: fx, y: fy };
+  const mx = Math.min(3, r.w / 2);
+  const my = Math.min(3, r.h / 2);
+  const x = Math.min(r.x + r.w - mx, Math.max(r.x + mx, fx * outline.width));
+  const y = Math.min(r.y + r.h - my, Math.max(r.y + my, fy * outline.height));
+  return { x: x / outline.width, y: y / outline.height };
+}

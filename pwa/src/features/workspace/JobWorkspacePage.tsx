@@ -65,17 +65,17 @@ export default function JobWorkspacePage() {
             </div>
           </div>
         </IonToolbar>
+      </IonHeader>
+      <IonContent>
         {job ? (
-          <IonToolbar className="pp-ws-stagebar">
+          <div className="pp-ws-stagebar">
             <StageBar
               steps={stageSteps(stage)}
               viewing={viewing}
               onView={(view) => setPicked({ view, at: job.stage })}
             />
-          </IonToolbar>
+          </div>
         ) : null}
-      </IonHeader>
-      <IonContent>
         <main className="pp-page pp-ws">
           {job === undefined ? (
             <div className="pp-loading" aria-busy="true" />

@@ -65,6 +65,10 @@ export function ConditionSignature({
               src={image}
               alt={`Signature of ${latest.signerName}`}
             />
+          ) : image === null ? (
+            <p className="pp-section-hint">
+              The signature image was taken on another phone; it is kept on the server.
+            </p>
           ) : null}
           {changed ? (
             <Notice tone="wait">

@@ -4,9 +4,17 @@ import type { DamagePinRow } from '@panelpass/shared';
 import { useChanges } from '../../../sync/useChanges';
 import { PhotoImage } from '../../photos';
 import { VehicleOutlineDrawing, type OutlinePin } from '../../outline/VehicleOutlineDrawing';
-import { panelAt, panelCentre, toFraction, vehicleOutline } from '../../outline/vehicleOutline';
+import {
+  panelAt,
+  panelCentre,
+  pinPlace,
+  toFraction,
+  vehicleOutline,
+} from '../../outline/vehicleOutline';
+import { FOOTER_ID } from '../../workspace/components/StageActions';
 import { bodyStyleWords } from '../../workspace/model/jobWords';
 import type { WalkaroundData } from '../hooks/useWalkaround';
+import { FLAG_WORDS } from '../model/film';
 import { pinKindWords, severityWords } from '../model/pins';
 import { PinSheet, type PinDraftTarget, type PinSheetResult } from './PinSheet';
 
@@ -29,10 +37,19 @@ export function DamagePins({ data }: { data: WalkaroundData }) {
   const drawn: OutlinePin[] = pins.map((p) => ({
     id: p.id,
     number: p.number,
-    x: p.x,
-    y: p.y,
+    ...pinPlace(outline, p.panelKey, p.x, p.y),
     severity: p.severity,
   }));
+  // Panels the film readings flag, marked on the drawing too.
+  const flagged = data.film.panels.filter(
+    (p) => (p.flags?.flags.length ?? 0) > 0 || (p.spots.length > 0 && !p.stats),
+  );
+  const marked = useMemo(
+    () => new Set(flagged.map((p) => p.panel.panelKey)),
+    // The keys are what matter, not the objects.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+    [flagged.map((p) => p.panel.panelKey).join(',')],
+  );
   if (target?.mode === 'new' && target.x !== null && target.y !== null) {
     drawn.push({
       id: 'pending',
@@ -53,6 +70,15 @@ export function DamagePins({ data }: { data: WalkaroundData }) {
               `${p.number}, ${pinKindWords(p.kind).toLowerCase()} on ${panelName(p.panelKey).toLowerCase()}`,
           )
           .join('; ')}.`
+  }${
+    flagged.length
+      ? ` Marked by the readings: ${flagged
+          .map(
+            (p) =>
+              `${p.panel.label.toLowerCase()} (${(p.flags?.flags ?? []).map((f) => FLAG_WORDS[f].toLowerCase()).join(', ') || 'reading not valid'})`,
+          )
+          .join('; ')}.`
+      : ''
   }`;
 
   /** Where a pin without a tapped place goes: on its panel, a little apart from the others. */
@@ -131,7 +157,8 @@ export function DamagePins({ data }: { data: WalkaroundData }) {
     void presentToast({
       message: `Pin ${pin.number} removed.`,
       duration: 6000,
-      position: 'top',
+      position: 'bottom',
+      positionAnchor: FOOTER_ID,
       cssClass: 'pp-toast',
       buttons: [
         {
@@ -164,10 +191,12 @@ export function DamagePins({ data }: { data: WalkaroundData }) {
         {readOnly
           ? 'Where the damage was found.'
           : 'Tap the drawing where the damage is. Numbers match the list below.'}
+        {flagged.length ? ' A thick frame with “!” marks a panel the film readings flag.' : ''}
       </p>
       <VehicleOutlineDrawing
         bodyStyle={bodyStyle}
         pins={drawn}
+        marked={marked}
         description={description}
         {...(readOnly
           ? {}

@@ -137,7 +137,7 @@ export function PinSheet({
         </IonToolbar>
       </IonHeader>
       <IonContent>
-        <div className="pp-page pp-sheet">
+        <div className="pp-page pp-wk-sheet">
           <div className="pp-field">
             <label className="pp-field__label" htmlFor={`${ids}-panel`}>
               Where
@@ -145,7 +145,7 @@ export function PinSheet({
             <div className="pp-field__control">
               <select
                 id={`${ids}-panel`}
-                className="pp-field__input pp-select"
+                className="pp-field__input pp-wk-select"
                 value={panelKey}
                 onChange={(e) => setPanelKey(e.target.value)}
               >
@@ -159,11 +159,11 @@ export function PinSheet({
             </div>
           </div>
 
-          <fieldset className="pp-choices">
+          <fieldset className="pp-wk-choices">
             <legend className="pp-field__label">What</legend>
-            <div className="pp-choices__row">
+            <div className="pp-wk-choices__row">
               {PIN_KINDS.map((k) => (
-                <label key={k} className="pp-choice">
+                <label key={k} className="pp-wk-choice">
                   <input
                     type="radio"
                     name={`${ids}-kind`}
@@ -177,11 +177,11 @@ export function PinSheet({
             </div>
           </fieldset>
 
-          <fieldset className="pp-choices">
+          <fieldset className="pp-wk-choices">
             <legend className="pp-field__label">How bad</legend>
-            <div className="pp-choices__row pp-choices__row--three">
+            <div className="pp-wk-choices__row pp-wk-choices__row--three">
               {SEVERITIES.map((s) => (
-                <label key={s} className="pp-choice">
+                <label key={s} className="pp-wk-choice">
                   <input
                     type="radio"
                     name={`${ids}-severity`}
@@ -189,8 +189,8 @@ export function PinSheet({
                     checked={severity === s}
                     onChange={() => setSeverity(s)}
                   />
-                  <span className="pp-choice__stack">
-                    <span className="pp-choice__big">{s}</span> {SEVERITY_WORDS[s]}
+                  <span className="pp-wk-choice__stack">
+                    <span className="pp-wk-choice__big">{s}</span> {SEVERITY_WORDS[s]}
                   </span>
                 </label>
               ))}
@@ -239,15 +239,15 @@ export function PinSheet({
       </IonContent>
       <IonFooter>
         <IonToolbar>
-          <div className="pp-sheet__actions">
+          <div className="pp-wk-sheet__actions">
             {editing && onRemove ? (
-              <button type="button" className="pp-button pp-button--stop" onClick={onRemove}>
+              <button type="button" className="pp-button pp-wk-button-stop" onClick={onRemove}>
                 Remove
               </button>
             ) : null}
             <button
               type="button"
-              className="pp-button pp-sheet__main"
+              className="pp-button pp-wk-sheet__main"
               disabled={busy !== null}
               onClick={() => void save()}
             >

@@ -131,7 +131,7 @@ export function ReadingSheet({
       </IonHeader>
       <IonContent>
         {panel ? (
-          <div className="pp-page pp-sheet">
+          <div className="pp-page pp-wk-sheet">
             <div className="pp-field">
               <label className="pp-field__label" htmlFor={`${ids}-substrate`}>
                 Panel is made of
@@ -142,7 +142,7 @@ export function ReadingSheet({
               <div className="pp-field__control">
                 <select
                   id={`${ids}-substrate`}
-                  className="pp-field__input pp-select"
+                  className="pp-field__input pp-wk-select"
                   value={substrate}
                   disabled={readOnly}
                   aria-describedby={`${ids}-substrate-hint`}
@@ -158,7 +158,7 @@ export function ReadingSheet({
             </div>
 
             <section className="pp-readings" aria-labelledby={`${ids}-spots`}>
-              <h3 id={`${ids}-spots`} className="pp-sheet__heading">
+              <h3 id={`${ids}-spots`} className="pp-wk-sheet__heading">
                 On this panel
               </h3>
               {panel.spots.length === 0 ? (
@@ -218,14 +218,14 @@ export function ReadingSheet({
 
             {readOnly ? null : (
               <section className="pp-new-spot" aria-labelledby={`${ids}-new`}>
-                <h3 id={`${ids}-new`} className="pp-sheet__heading">
+                <h3 id={`${ids}-new`} className="pp-wk-sheet__heading">
                   New spot
                 </h3>
-                <fieldset className="pp-choices">
+                <fieldset className="pp-wk-choices">
                   <legend className="pp-field__label">Gauge</legend>
-                  <div className="pp-choices__row pp-choices__row--even">
+                  <div className="pp-wk-choices__row pp-wk-choices__row--even">
                     {GAUGE_KINDS.map((g) => (
-                      <label key={g} className="pp-choice">
+                      <label key={g} className="pp-wk-choice">
                         <input
                           type="radio"
                           name={`${ids}-gauge`}
@@ -243,11 +243,11 @@ export function ReadingSheet({
                     {r.message}
                   </Notice>
                 ))}
-                <fieldset className="pp-choices">
+                <fieldset className="pp-wk-choices">
                   <legend className="pp-field__label">Unit</legend>
-                  <div className="pp-choices__row pp-choices__row--even">
+                  <div className="pp-wk-choices__row pp-wk-choices__row--even">
                     {(['um', 'mil'] as const).map((u) => (
-                      <label key={u} className="pp-choice">
+                      <label key={u} className="pp-wk-choice">
                         <input
                           type="radio"
                           name={`${ids}-unit`}
@@ -260,7 +260,7 @@ export function ReadingSheet({
                     ))}
                   </div>
                 </fieldset>
-                <fieldset className="pp-choices">
+                <fieldset className="pp-wk-choices">
                   <legend className="pp-field__label">
                     Readings, {MIN_READINGS} or more close together
                   </legend>
@@ -327,8 +327,8 @@ export function ReadingSheet({
       {panel && !readOnly ? (
         <IonFooter>
           <IonToolbar>
-            <div className="pp-sheet__actions pp-sheet__actions--column">
-              <p className="pp-sheet__status" role="status">
+            <div className="pp-wk-sheet__actions pp-wk-sheet__actions--column">
+              <p className="pp-wk-sheet__status" role="status">
                 {said ??
                   (blocked
                     ? 'This gauge cannot measure on this panel.'
@@ -338,7 +338,7 @@ export function ReadingSheet({
               </p>
               <button
                 type="button"
-                className="pp-button pp-sheet__main"
+                className="pp-button pp-wk-sheet__main"
                 disabled={!canSave}
                 onClick={() => void saveSpot()}
               >

@@ -141,7 +141,7 @@ export function SignatureSheet({
         </IonToolbar>
       </IonHeader>
       <IonContent>
-        <div className="pp-page pp-sheet">
+        <div className="pp-page pp-wk-sheet">
           <p className="pp-section-hint">
             Please read the condition of your car as we found it, before any work. Signing says you
             agree this is how it was.
@@ -191,13 +191,13 @@ export function SignatureSheet({
       </IonContent>
       <IonFooter>
         <IonToolbar>
-          <div className="pp-sheet__actions pp-sheet__actions--column">
-            <p className="pp-sheet__status" role="status">
+          <div className="pp-wk-sheet__actions pp-wk-sheet__actions--column">
+            <p className="pp-wk-sheet__status" role="status">
               {missing ?? `Signing as ${name.trim()}.`}
             </p>
             <button
               type="button"
-              className="pp-button pp-sheet__main"
+              className="pp-button pp-wk-sheet__main"
               disabled={busy || missing !== null}
               onClick={() => void sign()}
             >

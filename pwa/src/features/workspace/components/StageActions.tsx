@@ -4,7 +4,8 @@ import { STAGE_LABELS, type JobStage } from '@panelpass/shared';
 import { useChanges } from '../../../sync/useChanges';
 import { backWords, forwardWords, stageMoves } from '../model/stages';
 
-const FOOTER_ID = 'pp-stage-actions';
+/** The footer's id: toasts of the workspace sit just above it (never over the main action). */
+export const FOOTER_ID = 'pp-ws-actions';
 
 /**
  * The stage's main action at the bottom, in thumb reach: "Move to <next stage>" (56 px, full
@@ -92,23 +93,25 @@ export function StageActions({
 
   if (!forward && !back) return null;
   return (
-    <IonFooter id={FOOTER_ID} className="pp-stage-actions">
+    <IonFooter id={FOOTER_ID} className="pp-ws-actions">
       <IonToolbar>
-        <div className="pp-stage-actions__row">
+        <div className="pp-ws-actions__row">
           {back ? (
             <button
               type="button"
               className="pp-button pp-button--back"
               disabled={busy}
+              aria-label={backWords(back)}
               onClick={() => void move(back, stage, true)}
             >
-              {backWords(back)}
+              <span>Back to</span>
+              <span className="pp-ws-actions__back-to">{STAGE_LABELS[back]}</span>
             </button>
           ) : null}
           {forward ? (
             <button
               type="button"
-              className="pp-button pp-stage-actions__main"
+              className="pp-button pp-ws-actions__main"
               disabled={busy}
               onClick={goForward}
             >

@@ -4,26 +4,26 @@ import type { StageStep, StepState, WorkspaceView } from '../model/stages';
 /** A small mark per state, drawn by us: a tick, a filled dot, an empty ring, a dashed ring. */
 function StepMark({ state }: { state: StepState }) {
   return (
-    <svg className="pp-stage__mark" width="22" height="22" viewBox="0 0 24 24" aria-hidden="true">
+    <svg className="pp-ws-step__mark" width="22" height="22" viewBox="0 0 24 24" aria-hidden="true">
       {state === 'done' ? (
         <>
-          <circle cx="12" cy="12" r="10" className="pp-stage__mark-fill" />
-          <path d="M7 12.5l3.2 3.2L17 9" className="pp-stage__mark-tick" />
+          <circle cx="12" cy="12" r="10" className="pp-ws-step__mark-fill" />
+          <path d="M7 12.5l3.2 3.2L17 9" className="pp-ws-step__mark-tick" />
         </>
       ) : state === 'current' ? (
         <>
-          <circle cx="12" cy="12" r="10" className="pp-stage__mark-ring" />
-          <circle cx="12" cy="12" r="5.5" className="pp-stage__mark-fill" />
+          <circle cx="12" cy="12" r="10" className="pp-ws-step__mark-ring" />
+          <circle cx="12" cy="12" r="5.5" className="pp-ws-step__mark-fill" />
         </>
       ) : state === 'beside' ? (
         <circle
           cx="12"
           cy="12"
           r="10"
-          className="pp-stage__mark-ring pp-stage__mark-ring--dashed"
+          className="pp-ws-step__mark-ring pp-ws-step__mark-ring--dashed"
         />
       ) : (
-        <circle cx="12" cy="12" r="10" className="pp-stage__mark-ring" />
+        <circle cx="12" cy="12" r="10" className="pp-ws-step__mark-ring" />
       )}
     </svg>
   );
@@ -49,21 +49,21 @@ export function StageBar({
     shown?.scrollIntoView?.({ block: 'nearest', inline: 'center' });
   }, [viewing]);
   return (
-    <nav className="pp-stages" aria-label="Stages of this job">
-      <ol ref={list} className="pp-stages__list">
+    <nav className="pp-ws-stages" aria-label="Stages of this job">
+      <ol ref={list} className="pp-ws-steps">
         {steps.map((step) => (
-          <li key={step.view} className={`pp-stage pp-stage--${step.state}`}>
+          <li key={step.view} className={`pp-ws-step pp-ws-step--${step.state}`}>
             <button
               type="button"
-              className="pp-stage__button"
+              className="pp-ws-step__button"
               aria-pressed={step.view === viewing}
               aria-current={step.state === 'current' ? 'step' : undefined}
               aria-label={`${step.label}: ${step.stateWord.toLowerCase()}${step.view === viewing ? ', showing' : ''}`}
               onClick={() => onView(step.view)}
             >
               <StepMark state={step.state} />
-              <span className="pp-stage__label">{step.label}</span>
-              <span className="pp-stage__state">{step.stateWord}</span>
+              <span className="pp-ws-step__label">{step.label}</span>
+              <span className="pp-ws-step__state">{step.stateWord}</span>
             </button>
           </li>
         ))}
