@@ -5,7 +5,6 @@ import { useJobRows } from '../../db/hooks';
 import { useChanges } from '../../sync/useChanges';
 import { ClimateCard } from '../climate/components/ClimateCard';
 import { useJobClimate } from '../climate/hooks/useLatestClimate';
-import { BottomBar } from '../prep/kit/BottomBar';
 import { decimalText, parseDecimal } from '../prep/kit/numbers';
 import { ProductCautions } from '../prep/kit/ProductCautions';
 import { clockTime } from '../prep/kit/time';
@@ -54,7 +53,7 @@ function useEnteredTemp(jobId: string): [EnteredTemp | null, (t: EnteredTemp | n
  * The Chips screen: each chip with its layers, the planner's next time in words and why,
  * and a one-tap Layer button that the climate gate blocks with its reasons. The temperature
  * comes from the job's climate readings, or one typed here. Touch-up cautions with the
- * paint's safety data sheet. Adding a chip is the main action.
+ * paint's safety data sheet.
  */
 export default function ChipsStage({ jobId }: StageScreenProps) {
   const { changes } = useChanges();
@@ -234,7 +233,7 @@ export default function ChipsStage({ jobId }: StageScreenProps) {
 
       <section className="pp-stage-section" aria-label="Each chip">
         {chips !== undefined && all.length === 0 ? (
-          <p className="pp-stage-muted">No chips on this job. “Add chip” below.</p>
+          <p className="pp-stage-muted">No chips on this job yet.</p>
         ) : null}
         {plans.map(({ chip, times, outcome }) => {
           const paint = paintOf(chip);
@@ -258,13 +257,14 @@ export default function ChipsStage({ jobId }: StageScreenProps) {
             />
           );
         })}
-      </section>
-
-      <BottomBar label="Chip actions">
-        <button type="button" className="pp-button" onClick={() => setAdding(true)}>
+        <button
+          type="button"
+          className="pp-button pp-button--quiet"
+          onClick={() => setAdding(true)}
+        >
           Add chip
         </button>
-      </BottomBar>
+      </section>
 
       <AddChipSheet
         jobId={jobId}

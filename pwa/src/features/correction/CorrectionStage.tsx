@@ -2,7 +2,6 @@ import { useState } from 'react';
 import { Cautions } from '../../components/Cautions';
 import { Notice } from '../../components/Notice';
 import { useJobRows } from '../../db/hooks';
-import { BottomBar } from '../prep/kit/BottomBar';
 import { useProductsOfKinds } from '../prep/kit/useStageData';
 import { useUnits } from '../settings/useUnits';
 import type { StageScreenProps } from '../workspace/stageScreens';
@@ -19,7 +18,7 @@ const PASS_KINDS = ['compound', 'polish', 'finishing-polish'];
 /**
  * The Correction stage: the panel board top to bottom in four bands, each panel with its
  * state, readings and clear-coat budget bar, and the board's progress. A tap opens the
- * panel: its passes, test spot and "Log pass". The main action opens the next panel to do.
+ * panel: its passes, test spot and "Log pass". "Next panel" opens the next one to do.
  */
 export default function CorrectionStage({ jobId }: StageScreenProps) {
   const units = useUnits();
@@ -56,6 +55,11 @@ export default function CorrectionStage({ jobId }: StageScreenProps) {
           <span className="pp-progress__fill" style={{ width: `${percent}%` }} />
         </div>
         <p className="pp-stage-muted">{words}</p>
+        {next ? (
+          <button type="button" className="pp-button" onClick={() => setOpenId(next.id)}>
+            Next panel: {next.label}
+          </button>
+        ) : null}
       </section>
 
       <div className="pp-correction-safety">
@@ -94,17 +98,6 @@ export default function CorrectionStage({ jobId }: StageScreenProps) {
           ))}
         </section>
       ))}
-
-      <BottomBar label="Correction actions">
-        <button
-          type="button"
-          className="pp-button"
-          disabled={!next}
-          onClick={() => next && setOpenId(next.id)}
-        >
-          {next ? `Next panel: ${next.label}` : 'Every panel done or skipped'}
-        </button>
-      </BottomBar>
 
       {open ? (
         <PanelSheet

@@ -6,7 +6,6 @@ import { applicationWindowOf } from '../chips/model/chipPlan';
 import { ClimateCard } from '../climate/components/ClimateCard';
 import { useLatestClimate } from '../climate/hooks/useLatestClimate';
 import { PhotoCapture, PhotoStrip, useJobPhotos } from '../photos';
-import { BottomBar } from '../prep/kit/BottomBar';
 import { Checklist } from '../prep/kit/Checklist';
 import { ChoiceField } from '../prep/kit/fields';
 import { decimalText, parseDecimal } from '../prep/kit/numbers';
@@ -26,7 +25,7 @@ const AFTER = { kinds: ['after' as const] };
 /**
  * The Finish stage: protection applied with its keep-dry window (from the product's cure time
  * at the panel's temperature, else the settings) started as a timer; the final inspection
- * checklist; after photos. Starting the keep-dry timer is the main action.
+ * checklist; after photos.
  */
 export default function FinishStage({ jobId }: StageScreenProps) {
   const { changes } = useChanges();
@@ -150,6 +149,18 @@ export default function FinishStage({ jobId }: StageScreenProps) {
             </ul>
           </details>
         ) : null}
+        <button
+          type="button"
+          className={`pp-button${armed ? ' pp-button--stop' : ''}`}
+          disabled={saving}
+          onClick={() => void start()}
+        >
+          {armed
+            ? 'Tap again: a second keep-dry timer'
+            : hours !== null && !problem
+              ? `Start keep-dry: ${hoursWords(hours)}`
+              : 'Start keep-dry timer'}
+        </button>
         <ClimateCard
           jobId={jobId}
           product={applicationWindowOf(product?.properties)}
@@ -170,21 +181,6 @@ export default function FinishStage({ jobId }: StageScreenProps) {
         <PhotoStrip photos={afterPhotos} label="After photos" empty="No after photos yet." />
         <PhotoCapture jobId={jobId} kind="after" label="Take an after photo" quiet />
       </section>
-
-      <BottomBar label="Finish actions">
-        <button
-          type="button"
-          className={`pp-button${armed ? ' pp-button--stop' : ''}`}
-          disabled={saving}
-          onClick={() => void start()}
-        >
-          {armed
-            ? 'Tap again: a second keep-dry timer'
-            : hours !== null && !problem
-              ? `Start keep-dry: ${hoursWords(hours)}`
-              : 'Start keep-dry timer'}
-        </button>
-      </BottomBar>
     </section>
   );
 }

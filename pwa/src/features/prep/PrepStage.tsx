@@ -7,7 +7,6 @@ import { MaskCard } from './components/MaskCard';
 import { MaskSheet } from './components/MaskSheet';
 import { SolventCard } from './components/SolventCard';
 import { SolventSheet } from './components/SolventSheet';
-import { BottomBar } from './kit/BottomBar';
 import { Checklist } from './kit/Checklist';
 import { ProductCautions } from './kit/ProductCautions';
 import { useServerNow } from './kit/useServerNow';
@@ -18,7 +17,6 @@ import { useUndo } from './kit/useUndo';
 import './kit/stageKit.css';
 
 const SOLVENT_KINDS = ['solvent'];
-const BAR_ID = 'pp-prep-actions';
 const TAPE_KINDS = ['tape'];
 
 /** Open flushes first (the nearest deadline on top), then the flushed ones, latest first. */
@@ -46,7 +44,7 @@ export default function PrepStage({ jobId }: StageScreenProps) {
   const tapes = useProductsOfKinds(TAPE_KINDS) ?? [];
   const allProducts = useProductsOfKinds([...SOLVENT_KINDS, ...TAPE_KINDS]) ?? [];
   const latest = useLatestClimate(jobId);
-  const undo = useUndo(BAR_ID);
+  const undo = useUndo();
   const [sheet, setSheet] = useState<'solvent' | 'mask' | null>(null);
 
   const panelLabel = (id: string | null) => panels.find((p) => p.id === id)?.label ?? null;
@@ -81,44 +79,53 @@ export default function PrepStage({ jobId }: StageScreenProps) {
     );
   }
 
+  // A solvent on the paint is the most urgent thing here: its section comes first then.
+  const solventSection = (
+    <section className="pp-stage-section" aria-labelledby="pp-solvents-title">
+      <div className="pp-stage-section__head">
+        <h2 id="pp-solvents-title" className="pp-stage-section__title">
+          Solvent spots
+        </h2>
+        <span className="pp-stage-section__count">
+          {openCount === 0 ? 'None waiting' : `${openCount} to flush`}
+        </span>
+      </div>
+      {solventRows !== undefined && applications.length === 0 ? (
+        <p className="pp-stage-muted">
+          Nothing on the paint. “Solvent on” starts a flush timer as it goes on.
+        </p>
+      ) : null}
+      {applications.map((app) => (
+        <SolventCard
+          key={app.id}
+          app={app}
+          product={productOf(app.productId)}
+          panelLabel={panelLabel(app.panelId)}
+          nowMs={nowMs}
+          units={units}
+          flushedWaitingAt={undo.waiting.get(`solvent:${app.id}`) ?? null}
+          onFlushed={() => flushed(app)}
+        />
+      ))}
+      <button type="button" className="pp-button" onClick={() => setSheet('solvent')}>
+        Solvent on
+      </button>
+      <ProductCautions
+        kind="solvent"
+        products={(usedSolvents.length ? usedSolvents : solvents).map((p) => ({
+          name: p.name,
+          sdsUrl: p.sdsUrl,
+        }))}
+      />
+    </section>
+  );
+
   return (
     <section className="pp-stage" aria-label="Prep">
+      {openCount > 0 ? solventSection : null}
       <Checklist jobId={jobId} stage="prep" title="Wash and decontamination" />
 
-      <section className="pp-stage-section" aria-labelledby="pp-solvents-title">
-        <div className="pp-stage-section__head">
-          <h2 id="pp-solvents-title" className="pp-stage-section__title">
-            Solvent spots
-          </h2>
-          <span className="pp-stage-section__count">
-            {openCount === 0 ? 'None waiting' : `${openCount} to flush`}
-          </span>
-        </div>
-        {solventRows !== undefined && applications.length === 0 ? (
-          <p className="pp-stage-muted">
-            Nothing on the paint. “Solvent on” below starts a flush timer as it goes on.
-          </p>
-        ) : null}
-        {applications.map((app) => (
-          <SolventCard
-            key={app.id}
-            app={app}
-            product={productOf(app.productId)}
-            panelLabel={panelLabel(app.panelId)}
-            nowMs={nowMs}
-            units={units}
-            flushedWaitingAt={undo.waiting.get(`solvent:${app.id}`) ?? null}
-            onFlushed={() => flushed(app)}
-          />
-        ))}
-        <ProductCautions
-          kind="solvent"
-          products={(usedSolvents.length ? usedSolvents : solvents).map((p) => ({
-            name: p.name,
-            sdsUrl: p.sdsUrl,
-          }))}
-        />
-      </section>
+      {openCount === 0 ? solventSection : null}
 
       <section className="pp-stage-section" aria-labelledby="pp-masks-title">
         <div className="pp-stage-section__head">
@@ -143,12 +150,6 @@ export default function PrepStage({ jobId }: StageScreenProps) {
             onRemoved={() => removed(item.id, item.what)}
           />
         ))}
-      </section>
-
-      <BottomBar label="Prep actions" id={BAR_ID}>
-        <button type="button" className="pp-button" onClick={() => setSheet('solvent')}>
-          Solvent on
-        </button>
         <button
           type="button"
           className="pp-button pp-button--quiet"
@@ -156,7 +157,7 @@ export default function PrepStage({ jobId }: StageScreenProps) {
         >
           Masking on
         </button>
-      </BottomBar>
+      </section>
 
       <SolventSheet
         jobId={jobId}

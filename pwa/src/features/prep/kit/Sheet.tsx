@@ -39,7 +39,7 @@ export function Sheet({
       </IonContent>
       {action ? (
         <IonFooter>
-          <div className="pp-stage-bar pp-stage-bar--sheet">{action}</div>
+          <div className="pp-sheet-bar">{action}</div>
         </IonFooter>
       ) : null}
     </IonModal>

@@ -15,9 +15,9 @@ interface Pending {
  * A change that cannot be taken back once recorded ("Flushed", "Removed") is held for six
  * seconds behind an Undo toast, then recorded with the time of the tap. Leaving the screen
  * records it at once; a second change records the first. The toast sits just above the
- * element `anchorId` (the stage's bottom bar), so it never covers a main action.
+ * page's footer when it has one (the workspace's stage moves), so it never covers them.
  */
-export function useUndo(anchorId?: string): {
+export function useUndo(): {
   /** Holds a change behind the Undo; `atMs` is the time of the tap it will be recorded with. */
   offer: (key: string, message: string, commit: () => void, atMs: number) => void;
   /** Changes waiting behind the toast, by key, with the time of the tap (show them as done). */
@@ -46,6 +46,10 @@ export function useUndo(anchorId?: string): {
 
   useEffect(() => () => ref.current?.commit(), []);
 
+  // The footer of the page on show (not a page hidden behind it in the router's stack).
+  const anchor = pending
+    ? document.querySelector<HTMLElement>('.ion-page:not(.ion-page-hidden) > ion-footer')
+    : null;
   const waiting = new Map(pending ? [[pending.key, pending.atMs]] : []);
   const toast = (
     <IonToast
@@ -53,7 +57,7 @@ export function useUndo(anchorId?: string): {
       message={pending?.message}
       duration={UNDO_MS}
       position="bottom"
-      {...(anchorId ? { positionAnchor: anchorId } : {})}
+      {...(anchor ? { positionAnchor: anchor } : {})}
       cssClass="pp-undo"
       buttons={[{ text: 'Undo', role: 'cancel', handler: () => settle(false) }]}
       onDidDismiss={(e) => {
