@@ -39,12 +39,12 @@ describe('the app shell offline', () => {
 
     await todayTab(page).waitFor({ state: 'visible' });
     expect(page.url()).toBe(`${baseUrl}/today`);
-    // The tab shell, not the sign-in screen: the owner's five tabs, and the empty day.
+    // The tab shell, not the sign-in screen: the owner's five tabs, and the day's visits.
     const tabBar = page.locator('ion-tab-bar');
     for (const tab of ['Today', 'Jobs', 'Clients', 'Shelf', 'Ledger']) {
       await tabBar.getByText(tab, { exact: true }).waitFor({ state: 'visible' });
     }
-    await page.getByText('No jobs today yet').waitFor({ state: 'visible' });
+    await page.getByRole('heading', { name: "Today's visits" }).waitFor({ state: 'visible' });
     expect(await page.getByRole('form', { name: 'Sign in' }).count()).toBe(0);
     expect(pageErrors).toEqual([]);
   });

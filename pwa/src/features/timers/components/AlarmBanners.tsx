@@ -6,7 +6,8 @@ import { useChanges } from '../../../sync/useChanges';
 import { KIND_WORDS, kindOf, remainingText } from '../model/timerWords';
 import { KIND_ICONS, stateLook } from './kindLook';
 
-const SHOWN = 2;
+/** One banner at a time keeps the page usable; the rest are a tap away. */
+const SHOWN = 1;
 
 function clock(iso: string): string {
   return new Date(iso).toLocaleTimeString(undefined, { hour: 'numeric', minute: '2-digit' });

@@ -35,7 +35,8 @@ export function TimerDock({ slot = 'bottom' }: { slot?: string }) {
   const live = timers ?? [];
   const now = useServerNow(live.length ? 1000 : null);
   const ordered = byDue(live, now);
-  const ended = ordered.filter((t) => timerState(t, now) === 'ended');
+  // The banners show the latest alarm first: the one that just sounded is the one to answer.
+  const ended = ordered.filter((t) => timerState(t, now) === 'ended').reverse();
   const counting = ordered.filter((t) => timerState(t, now) !== 'ended');
   const running = counting.some((t) => timerState(t, now) === 'running');
 

@@ -115,7 +115,7 @@ export function AlarmSettings({ wakeLockHeld }: { wakeLockHeld: boolean }) {
           onClick={() => void askNotifyPermission().then(setPermission)}
         >
           <IonIcon icon={notificationsOutline} aria-hidden="true" />
-          Tell me when the app is in the background
+          Notify me when the app is in the background
         </button>
       )}
       {wakeLockSupported() ? (

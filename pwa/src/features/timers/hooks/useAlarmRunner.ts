@@ -28,6 +28,17 @@ function storage(): Storage | null {
 
 const visible = () => document.visibilityState === 'visible';
 
+// When the app last came on screen, on this phone's clock (null while hidden). Kept for the
+// whole page, from the moment the signed-in shell loads, so a re-mounted shell does not take
+// a timer that ended on screen for a missed one.
+let visibleSincePhone: number | null = null;
+if (typeof document !== 'undefined') {
+  visibleSincePhone = visible() ? Date.now() : null;
+  document.addEventListener('visibilitychange', () => {
+    visibleSincePhone = visible() ? Date.now() : null;
+  });
+}
+
 export interface AlarmRunner {
   /** Ended, unacknowledged timers whose alarm did not sound on time with the app on screen. */
   missedIds: ReadonlySet<string>;
@@ -54,8 +65,6 @@ export function useAlarmRunner(
   const [memory, setMemory] = useState<AlarmMemory>(() => readMemory(storage(), key));
   const memoryRef = useRef(memory);
   const [rang, setRang] = useState<ReadonlySet<string>>(() => new Set());
-  // When the app last came on screen (server clock); null while hidden.
-  const visibleSince = useRef<number | null>(null);
   const jobWordsRef = useRef(jobWords);
   jobWordsRef.current = jobWords;
 
@@ -64,12 +73,12 @@ export function useAlarmRunner(
   useEffect(() => {
     if (!timers) return;
     const serverNow = () => Date.now() + offsetMs;
-    if (visibleSince.current === null && visible()) visibleSince.current = serverNow();
     let handle: number | undefined;
 
     const check = () => {
       const now = serverNow();
-      const plan = planAlarms(timers, now, memoryRef.current, visibleSince.current);
+      const since = visibleSincePhone === null ? null : visibleSincePhone + offsetMs;
+      const plan = planAlarms(timers, now, memoryRef.current, since);
       const first = plan.ring[0];
       if (first) {
         playAlarm(kindOf(first));
@@ -105,17 +114,14 @@ export function useAlarmRunner(
       if (upcoming) handle = window.setTimeout(check, Math.min(upcoming.inMs + 50, 2 ** 31 - 1));
     };
 
-    const onVisibility = () => {
-      visibleSince.current = visible() ? serverNow() : null;
-      check();
-    };
     check();
-    document.addEventListener('visibilitychange', onVisibility);
+    // Coming back on screen: sound what ended meanwhile (or show it as missed).
+    document.addEventListener('visibilitychange', check);
     window.addEventListener('pageshow', check);
     window.addEventListener('focus', check);
     return () => {
       window.clearTimeout(handle);
-      document.removeEventListener('visibilitychange', onVisibility);
+      document.removeEventListener('visibilitychange', check);
       window.removeEventListener('pageshow', check);
       window.removeEventListener('focus', check);
     };

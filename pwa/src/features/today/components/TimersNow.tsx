@@ -48,7 +48,10 @@ export function TimersNow({ jobWords }: { jobWords: (jobId: string) => string | 
                 </span>
                 <span className="pp-today-timer__label">{t.label || KIND_WORDS[kind]}</span>
                 {job ? <span className="pp-today-timer__job">{job}</span> : null}
-                <span className="pp-today-timer__time" aria-hidden="true">
+                <span
+                  className={`pp-today-timer__time${state === 'ended' ? ' pp-today-timer__time--over' : ''}`}
+                  aria-hidden="true"
+                >
                   {remainingText(t, now)}
                 </span>
                 <span className="pp-timer__spoken">{remainingSpoken(t, now)}</span>
