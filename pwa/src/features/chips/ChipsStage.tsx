@@ -172,6 +172,41 @@ export default function ChipsStage({ jobId }: StageScreenProps) {
         {...(mainPaint ? { productName: mainPaint.name } : {})}
       />
 
+      <section className="pp-stage-section" aria-label="Each chip">
+        {chips !== undefined && all.length === 0 ? (
+          <p className="pp-stage-muted">No chips on this job yet.</p>
+        ) : null}
+        {plans.map(({ chip, times, outcome }) => {
+          const paint = paintOf(chip);
+          return (
+            <ChipCard
+              key={chip.id}
+              chip={chip}
+              layersDone={times.length}
+              paint={paint}
+              panelLabel={panels.find((p) => p.id === chip.panelId)?.label ?? null}
+              outcome={outcome}
+              gate={chipGate({
+                latest,
+                entered,
+                window: applicationWindowOf(paint?.properties),
+                nowMs,
+                unit: units.temperature,
+              })}
+              nowMs={nowMs}
+              onLayer={() => void layerOn(chip)}
+            />
+          );
+        })}
+        <button
+          type="button"
+          className="pp-button pp-button--quiet"
+          onClick={() => setAdding(true)}
+        >
+          Add chip
+        </button>
+      </section>
+
       <section className="pp-stage-section pp-chip-temp" aria-labelledby="pp-chip-temp-title">
         <h2 id="pp-chip-temp-title" className="pp-stage-section__title">
           Panel temperature for the planner
@@ -230,41 +265,6 @@ export default function ChipsStage({ jobId }: StageScreenProps) {
           sdsUrl: p.sdsUrl,
         }))}
       />
-
-      <section className="pp-stage-section" aria-label="Each chip">
-        {chips !== undefined && all.length === 0 ? (
-          <p className="pp-stage-muted">No chips on this job yet.</p>
-        ) : null}
-        {plans.map(({ chip, times, outcome }) => {
-          const paint = paintOf(chip);
-          return (
-            <ChipCard
-              key={chip.id}
-              chip={chip}
-              layersDone={times.length}
-              paint={paint}
-              panelLabel={panels.find((p) => p.id === chip.panelId)?.label ?? null}
-              outcome={outcome}
-              gate={chipGate({
-                latest,
-                entered,
-                window: applicationWindowOf(paint?.properties),
-                nowMs,
-                unit: units.temperature,
-              })}
-              nowMs={nowMs}
-              onLayer={() => void layerOn(chip)}
-            />
-          );
-        })}
-        <button
-          type="button"
-          className="pp-button pp-button--quiet"
-          onClick={() => setAdding(true)}
-        >
-          Add chip
-        </button>
-      </section>
 
       <AddChipSheet
         jobId={jobId}
