@@ -76,7 +76,7 @@ export default function JobWorkspacePage() {
             />
           </div>
         ) : null}
-        <main className="pp-page pp-ws">
+        <div className="pp-page pp-ws">
           {job === undefined ? (
             <div className="pp-loading" aria-busy="true" />
           ) : job === null ? (
@@ -113,7 +113,7 @@ export default function JobWorkspacePage() {
               <StageScreen view={viewing} jobId={job.id} job={job} />
             </>
           )}
-        </main>
+        </div>
       </IonContent>
       {job ? (
         <StageActions jobId={job.id} stage={stage} warnBeforeForward={warnBeforeForward} />

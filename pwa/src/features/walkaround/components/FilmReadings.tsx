@@ -62,9 +62,9 @@ export function FilmReadings({ data, unit }: { data: WalkaroundData; unit: Thick
         if (inBand.length === 0) return null;
         return (
           <section key={band} className="pp-band" aria-labelledby={`pp-band-${band}`}>
-            <h4 id={`pp-band-${band}`} className="pp-band__title">
+            <h3 id={`pp-band-${band}`} className="pp-band__title">
               {BAND_WORDS[band]}
-            </h4>
+            </h3>
             <ul className="pp-band__panels">
               {inBand.map((p) => {
                 const flags = p.flags?.flags ?? [];

@@ -123,7 +123,7 @@ export function PinSheet({
 
   const title = editing ? `Damage ${number}` : `New damage, pin ${number}`;
   return (
-    <IonModal isOpen={target !== null} onDidDismiss={onClose} aria-labelledby={`${ids}-title`}>
+    <IonModal isOpen={target !== null} onDidDismiss={onClose} aria-label={title}>
       <IonHeader>
         <IonToolbar>
           <div className="pp-header">

@@ -116,7 +116,11 @@ export function ReadingSheet({
   const stats = panel?.stats ?? null;
 
   return (
-    <IonModal isOpen={panel !== null} onDidDismiss={onClose} aria-labelledby={`${ids}-title`}>
+    <IonModal
+      isOpen={panel !== null}
+      onDidDismiss={onClose}
+      aria-label={panel?.panel.label ?? 'Panel'}
+    >
       <IonHeader>
         <IonToolbar>
           <div className="pp-header">

@@ -126,7 +126,7 @@ export function SignatureSheet({
         setReady(false);
         onClose();
       }}
-      aria-labelledby={`${ids}-title`}
+      aria-label={"Owner's signature"}
     >
       <IonHeader>
         <IonToolbar>

@@ -2,7 +2,7 @@ import { IonFooter, IonToolbar, useIonAlert, useIonToast } from '@ionic/react';
 import { useState } from 'react';
 import { STAGE_LABELS, type JobStage } from '@panelpass/shared';
 import { useChanges } from '../../../sync/useChanges';
-import { backWords, forwardWords, stageMoves } from '../model/stages';
+import { forwardWords, stageMoves } from '../model/stages';
 
 /** The footer's id: toasts of the workspace sit just above it (never over the main action). */
 export const FOOTER_ID = 'pp-ws-actions';
@@ -101,10 +101,9 @@ export function StageActions({
               type="button"
               className="pp-button pp-button--back"
               disabled={busy}
-              aria-label={backWords(back)}
               onClick={() => void move(back, stage, true)}
             >
-              <span>Back to</span>
+              <span>Back to</span>{' '}
               <span className="pp-ws-actions__back-to">{STAGE_LABELS[back]}</span>
             </button>
           ) : null}

@@ -58,7 +58,6 @@ export function StageBar({
               className="pp-ws-step__button"
               aria-pressed={step.view === viewing}
               aria-current={step.state === 'current' ? 'step' : undefined}
-              aria-label={`${step.label}: ${step.stateWord.toLowerCase()}${step.view === viewing ? ', showing' : ''}`}
               onClick={() => onView(step.view)}
             >
               <StepMark state={step.state} />
