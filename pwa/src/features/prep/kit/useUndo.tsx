@@ -44,7 +44,15 @@ export function useUndo(): {
     [settle],
   );
 
-  useEffect(() => () => ref.current?.commit(), []);
+  // Leaving the screen records what waits (once: a late dismiss finds nothing left).
+  useEffect(
+    () => () => {
+      const current = ref.current;
+      ref.current = null;
+      current?.commit();
+    },
+    [],
+  );
 
   // The footer of the page on show (not a page hidden behind it in the router's stack).
   const anchor = pending
