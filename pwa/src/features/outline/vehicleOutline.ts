@@ -57,8 +57,10 @@ interface SidePiece {
   readonly key: string;
   /** Share of the side's length (the side spans from the hood to the rear bumper). */
   readonly weight: number;
-  /** The piece has a wheel arch at its outer edge. */
+  /** The piece has a wheel at its outer edge… */
   readonly wheel?: boolean;
+  /** …this far along it (0 front, 1 rear; default the middle). */
+  readonly wheelAt?: number;
 }
 
 interface StyleSpec {
@@ -184,13 +186,13 @@ const SPECS: Record<BodyStyle, StyleSpec> = {
       { key: 'front-fender', weight: 4, wheel: true },
       { key: 'front-door', weight: 2.8 },
       { key: 'rear-door', weight: 2.2 },
-      { key: 'bed-side', weight: 6, wheel: true },
+      { key: 'bed-side', weight: 6, wheel: true, wheelAt: 0.4 },
     ],
     right: [
       { key: 'front-fender', weight: 4, wheel: true },
       { key: 'front-door', weight: 2.8 },
       { key: 'rear-door', weight: 2.2 },
-      { key: 'bed-side', weight: 6, wheel: true },
+      { key: 'bed-side', weight: 6, wheel: true, wheelAt: 0.4 },
     ],
     rockerUnder: [1, 2],
   },
@@ -207,13 +209,13 @@ const SPECS: Record<BodyStyle, StyleSpec> = {
     left: [
       { key: 'front-fender', weight: 2, wheel: true },
       { key: 'front-door', weight: 2.4 },
-      { key: 'side-panel', weight: 9.6, wheel: true },
+      { key: 'side-panel', weight: 9.6, wheel: true, wheelAt: 0.78 },
     ],
     right: [
       { key: 'front-fender', weight: 2, wheel: true },
       { key: 'front-door', weight: 2.4 },
       { key: 'sliding-door', weight: 4.2 },
-      { key: 'rear-side-panel', weight: 5.4, wheel: true },
+      { key: 'rear-side-panel', weight: 5.4, wheel: true, wheelAt: 0.6 },
     ],
     rockerUnder: [1, 2],
   },
@@ -311,7 +313,7 @@ function build(style: BodyStyle): VehicleOutline {
         h: r.h - GAP,
         rx: 2,
       });
-      if (p.wheel) wheels.push({ cx: outerX, cy: r.y + r.h / 2, r: 6 });
+      if (p.wheel) wheels.push({ cx: outerX, cy: r.y + r.h * (p.wheelAt ?? 0.5), r: 6 });
     });
     const [rf, rt] = spec.rockerUnder;
     const rTop = (placed[rf]?.y ?? 0) + GAP / 2;

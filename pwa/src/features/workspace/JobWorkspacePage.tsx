@@ -11,7 +11,6 @@ import { Link, useParams } from 'react-router-dom';
 import type { JobRow } from '@panelpass/shared';
 import { useJobRows, useRow } from '../../db/hooks';
 import { EmptyState } from '../../components/EmptyState';
-import { Notice } from '../../components/Notice';
 import { SyncBadge } from '../shell/components/SyncBadge';
 import { JobSummary } from './components/JobSummary';
 import { StageActions } from './components/StageActions';
@@ -96,11 +95,11 @@ export default function JobWorkspacePage() {
                 <p className="pp-ws-job__line">{windowWords(job)}</p>
                 {job.address ? <p className="pp-ws-job__line">{job.address}</p> : null}
               </section>
-              {viewing !== stage ? (
-                <div className="pp-ws-elsewhere">
-                  <Notice tone="info">
-                    You are looking at {viewLabel(viewing)}. The job is at {viewLabel(stage)}.
-                  </Notice>
+              {viewing !== stage && !besideTheStage(viewing, stage) ? (
+                <div className="pp-ws-elsewhere" role="status">
+                  <p>
+                    Showing {viewLabel(viewing)}. The job is at {viewLabel(stage)}.
+                  </p>
                   <button
                     type="button"
                     className="pp-button pp-button--quiet-go"
@@ -120,6 +119,11 @@ export default function JobWorkspacePage() {
       ) : null}
     </IonPage>
   );
+}
+
+/** Chips are worked on during prep and correction: looking at them is not looking away. */
+function besideTheStage(view: WorkspaceView, stage: string): boolean {
+  return view === 'chips' && (stage === 'prep' || stage === 'correction');
 }
 
 function StageScreen({ view, jobId, job }: { view: WorkspaceView; jobId: string; job: JobRow }) {
