@@ -6,17 +6,15 @@ import { useChanges } from '../../../sync/useChanges';
 import { KIND_WORDS, kindOf, remainingText } from '../model/timerWords';
 import { KIND_ICONS, stateLook } from './kindLook';
 
-/** One banner at a time keeps the page usable; the rest are a tap away. */
-const SHOWN = 1;
-
 function clock(iso: string): string {
   return new Date(iso).toLocaleTimeString(undefined, { hour: 'numeric', minute: '2-digit' });
 }
 
 /**
- * Ended timers not yet acknowledged, as banners at the bottom (within thumb reach) until
+ * Ended timers not yet acknowledged, as a banner at the bottom (within thumb reach) until
  * acknowledged: "Time's up" when the alarm sounded on time, "Missed alarm" when the timer
- * ended while the app was closed or in the background. Announced when they appear.
+ * ended while the app was closed or in the background. The latest one shows; the others are
+ * one tap away in the timer sheet. Announced when it appears.
  */
 export function AlarmBanners({
   ended,
@@ -33,53 +31,60 @@ export function AlarmBanners({
 }) {
   const { changes } = useChanges();
   const [busy, setBusy] = useState<string | null>(null);
-  if (!ended.length) return null;
-  const shown = ended.slice(0, SHOWN);
-  const hidden = ended.length - shown.length;
+  const t = ended[0];
+  if (!t) return null;
+  const more = ended.length - 1;
+  const kind = kindOf(t);
+  const look = stateLook('ended', missedIds.has(t.id));
+  const label = t.label || KIND_WORDS[kind];
+  const job = jobWords(t.jobId);
 
   return (
     <section className="pp-alarms" role="alert" aria-label="Alarms">
-      {shown.map((t) => {
-        const kind = kindOf(t);
-        const missed = missedIds.has(t.id);
-        const look = stateLook('ended', missed);
-        const job = jobWords(t.jobId);
-        return (
-          <div key={t.id} className="pp-alarm">
-            <div className="pp-alarm__words">
-              <p className="pp-alarm__head">
-                <IonIcon icon={look.icon} aria-hidden="true" />
-                <span>
-                  {look.word}: {KIND_WORDS[kind]}
-                </span>
-                <IonIcon className="pp-alarm__kind" icon={KIND_ICONS[kind]} aria-hidden="true" />
-              </p>
-              <p className="pp-alarm__label">{t.label || KIND_WORDS[kind]}</p>
-              <p className="pp-alarm__when">
-                {job ? `${job} · ` : ''}ended {clock(t.endsAt)} ({remainingText(t, nowMs)})
-              </p>
-            </div>
-            <button
-              type="button"
-              className="pp-alarm__ack"
-              aria-label={`Acknowledge: ${t.label || KIND_WORDS[kind]}`}
-              disabled={busy === t.id}
-              onClick={() => {
-                setBusy(t.id);
-                void changes.ackTimer({ id: t.id }).finally(() => setBusy(null));
-              }}
-            >
-              <IonIcon icon={checkmarkOutline} aria-hidden="true" />
-              Acknowledge
-            </button>
-          </div>
-        );
-      })}
-      {hidden > 0 ? (
-        <button type="button" className="pp-alarms__more" onClick={onShowAll}>
-          {hidden} more {hidden === 1 ? 'alarm' : 'alarms'}: show all timers
+      <div className="pp-alarm">
+        <button
+          type="button"
+          className="pp-alarm__words"
+          aria-haspopup="dialog"
+          aria-label={`${look.word}: ${KIND_WORDS[kind]}, ${label}${job ? `, ${job}` : ''}, ended ${clock(t.endsAt)}. Show all timers.`}
+          onClick={onShowAll}
+        >
+          <span className="pp-alarm__head">
+            <IonIcon icon={look.icon} aria-hidden="true" />
+            <span>{look.word}</span>
+          </span>
+          <span className="pp-alarm__label">
+            <IonIcon icon={KIND_ICONS[kind]} aria-hidden="true" />
+            <span>
+              {KIND_WORDS[kind]}: {label}
+            </span>
+          </span>
+          <span className="pp-alarm__when">
+            ended {clock(t.endsAt)} · {remainingText(t, nowMs)}
+            {job ? ` · ${job}` : ''}
+          </span>
         </button>
-      ) : null}
+        <div className="pp-alarm__buttons">
+          <button
+            type="button"
+            className="pp-alarm__ack"
+            aria-label={`Acknowledge: ${label}`}
+            disabled={busy === t.id}
+            onClick={() => {
+              setBusy(t.id);
+              void changes.ackTimer({ id: t.id }).finally(() => setBusy(null));
+            }}
+          >
+            <IonIcon icon={checkmarkOutline} aria-hidden="true" />
+            Acknowledge
+          </button>
+          {more > 0 ? (
+            <button type="button" className="pp-alarms__more" onClick={onShowAll}>
+              {more} more
+            </button>
+          ) : null}
+        </div>
+      </div>
     </section>
   );
 }
