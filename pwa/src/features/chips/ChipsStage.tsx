@@ -154,7 +154,7 @@ export default function ChipsStage({ jobId }: StageScreenProps) {
 
   return (
     <section className="pp-stage" aria-label="Chips">
-      <section className="pp-stage-section" aria-labelledby="pp-chips-title">
+      <div className="pp-stage-section">
         <div className="pp-stage-section__head">
           <h2 id="pp-chips-title" className="pp-stage-section__title">
             Chips
@@ -164,7 +164,7 @@ export default function ChipsStage({ jobId }: StageScreenProps) {
             {nextTimes[0] !== undefined ? ` · next at ${clockTime(nextTimes[0])}` : ''}
           </span>
         </div>
-      </section>
+      </div>
 
       <ClimateCard
         jobId={jobId}

@@ -128,12 +128,12 @@ export function PassForm({
         problem={tried ? problems.pad : null}
       />
       {padsUsed.length > 0 ? (
-        <div className="pp-quick" role="group" aria-label="Pads used on this job">
+        <div className="pp-stage-quick" role="group" aria-label="Pads used on this job">
           {padsUsed.map((pad) => (
             <button
               key={pad}
               type="button"
-              className="pp-quick__button"
+              className="pp-stage-quick__button"
               aria-pressed={draft.pad === pad}
               onClick={() => set('pad', pad)}
             >

@@ -1,5 +1,5 @@
 import { IonContent, IonFooter, IonHeader, IonModal, IonToolbar } from '@ionic/react';
-import { useId, type ReactNode } from 'react';
+import type { ReactNode } from 'react';
 
 /**
  * A full-height sheet over the stage screen: its title and Close at the top, the work in the
@@ -19,15 +19,12 @@ export function Sheet({
   /** The main action(s), shown at the bottom. */
   action?: ReactNode;
 }) {
-  const titleId = useId();
   return (
-    <IonModal isOpen={isOpen} onDidDismiss={onClose} aria-labelledby={titleId}>
+    <IonModal isOpen={isOpen} onDidDismiss={onClose} aria-label={title}>
       <IonHeader>
         <IonToolbar>
           <div className="pp-header">
-            <h2 id={titleId} className="pp-header__title">
-              {title}
-            </h2>
+            <h2 className="pp-header__title">{title}</h2>
             <button type="button" className="pp-stage-close" onClick={onClose}>
               Close
             </button>

@@ -41,7 +41,7 @@ export function SelectField({
       <div className="pp-field__control">
         <select
           id={id}
-          className="pp-field__input pp-select"
+          className="pp-field__input pp-stage-select"
           value={value}
           aria-describedby={hint ? `${id}-hint` : undefined}
           onChange={(e) => onChange(e.target.value)}
@@ -75,16 +75,16 @@ export function ChoiceField({
 }) {
   const name = useId();
   return (
-    <fieldset className="pp-choices">
+    <fieldset className="pp-stage-choices">
       <legend className="pp-field__label">{label}</legend>
       <div
-        className="pp-choices__row"
+        className="pp-stage-choices__row"
         style={{
           gridTemplateColumns: `repeat(auto-fit, minmax(${columns ? 18 / columns : 7}rem, 1fr))`,
         }}
       >
         {options.map((o) => (
-          <label key={o.value} className="pp-choice">
+          <label key={o.value} className="pp-stage-choice">
             <input
               type="radio"
               name={name}
@@ -92,7 +92,7 @@ export function ChoiceField({
               checked={value === o.value}
               onChange={() => onChange(o.value)}
             />
-            <span className="pp-choice__face">
+            <span className="pp-stage-choice__face">
               {o.icon}
               {o.label}
             </span>
