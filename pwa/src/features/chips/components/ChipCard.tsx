@@ -54,6 +54,13 @@ export function ChipCard({
   const reasonsId = `pp-chip-why-${chip.id}`;
   const tone = words?.tone ?? 'quiet';
 
+  // The visible words, which the spoken name starts with.
+  const face = blocked
+    ? `Layer ${next}: blocked`
+    : armedAt !== null
+      ? `Tap again: layer ${next} now`
+      : `Layer ${next}`;
+
   function tap() {
     if (blocked) return;
     if (early && armedAt === null) {
@@ -113,18 +120,10 @@ export function ChipCard({
         className={`pp-button${armedAt !== null ? ' pp-button--stop' : ''}`}
         aria-disabled={blocked || undefined}
         aria-describedby={blocked ? reasonsId : undefined}
-        aria-label={
-          armedAt !== null
-            ? `Tap again: layer ${next} on chip ${chip.number} now`
-            : `Layer ${next} on chip ${chip.number}`
-        }
+        aria-label={`${face}, chip ${chip.number}`}
         onClick={tap}
       >
-        {blocked
-          ? `Layer ${next}: blocked`
-          : armedAt !== null
-            ? `Tap again: layer ${next} now`
-            : `Layer ${next}`}
+        {face}
       </button>
 
       {plan && plan.reasons.length > 0 ? (
