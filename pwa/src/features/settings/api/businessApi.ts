@@ -11,3 +11,17 @@ export const businessQuery = (client: ApiClient, businessId: string) =>
     queryFn: ({ signal }) => client.request<unknown>('/api/business', { signal }),
     staleTime: 5 * 60_000,
   });
+
+/** What the field settings sheet changes: each section sent replaces that section. */
+export interface FieldSettingsPatch {
+  units: { thickness: 'um' | 'mil'; temperature: 'C' | 'F' };
+  drive: { roadFactor: number; averageSpeedKmh: number };
+}
+
+/** `PATCH /api/business` (owner): answers the business with its settings. */
+export function saveFieldSettings(client: ApiClient, patch: FieldSettingsPatch): Promise<unknown> {
+  return client.request<unknown>('/api/business', {
+    method: 'PATCH',
+    body: { settings: patch },
+  });
+}

@@ -1,4 +1,6 @@
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
+import { useSession } from '../../auth/hooks/useSession';
+import { FieldSettingsSheet } from '../../settings/components/FieldSettingsSheet';
 import { useUnits } from '../../settings/useUnits';
 import { useJobSummaries } from '../../jobs/hooks/useJobSummaries';
 import { jobsOfDay } from '../../jobs/model/jobSummary';
@@ -22,6 +24,8 @@ const SOURCE_WORDS = {
  */
 export function TodayScreen() {
   const units = useUnits();
+  const isOwner = useSession()?.user.role === 'owner';
+  const [editing, setEditing] = useState(false);
   const jobs = useJobSummaries();
   // Deadlines and chip times move by the minute; the timers section ticks by the second.
   const now = useServerNow(15_000);
@@ -63,8 +67,14 @@ export function TodayScreen() {
       <TimersNow jobWords={jobWords} />
 
       {jobs === undefined ? null : (
-        <TodayVisits visits={visits} drive={units.drive} driveSource={SOURCE_WORDS[units.source]} />
+        <TodayVisits
+          visits={visits}
+          drive={units.drive}
+          driveSource={SOURCE_WORDS[units.source]}
+          onChangeDrive={isOwner ? () => setEditing(true) : undefined}
+        />
       )}
+      {isOwner ? <FieldSettingsSheet isOpen={editing} onClose={() => setEditing(false)} /> : null}
     </div>
   );
 }

@@ -19,10 +19,13 @@ export function TodayVisits({
   visits,
   drive,
   driveSource,
+  onChangeDrive,
 }: {
   visits: readonly JobSummary[];
   drive: DriveSettings;
   driveSource: string;
+  /** The owner may change the factors (Settings). */
+  onChangeDrive?: (() => void) | undefined;
 }) {
   const legs = dayLegs(visits, drive);
   return (
@@ -67,6 +70,11 @@ export function TodayVisits({
               Drive times are estimates from the map positions: straight-line distance ×{' '}
               {drive.roadFactor} for the roads, at {drive.averageKmh} km/h ({driveSource}).
             </p>
+          ) : null}
+          {onChangeDrive ? (
+            <button type="button" className="pp-link pp-today__change" onClick={onChangeDrive}>
+              Change units and drive times
+            </button>
           ) : null}
         </>
       )}
