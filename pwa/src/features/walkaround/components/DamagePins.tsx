@@ -44,12 +44,7 @@ export function DamagePins({ data }: { data: WalkaroundData }) {
   const flagged = data.film.panels.filter(
     (p) => (p.flags?.flags.length ?? 0) > 0 || (p.spots.length > 0 && !p.stats),
   );
-  const marked = useMemo(
-    () => new Set(flagged.map((p) => p.panel.panelKey)),
-    // The keys are what matter, not the objects.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-    [flagged.map((p) => p.panel.panelKey).join(',')],
-  );
+  const marked = new Set(flagged.map((p) => p.panel.panelKey));
   if (target?.mode === 'new' && target.x !== null && target.y !== null) {
     drawn.push({
       id: 'pending',
