@@ -1,5 +1,6 @@
 import { plainToInstance, Transform } from 'class-transformer';
 import {
+  IsBoolean,
   IsIn,
   IsInt,
   IsOptional,
@@ -9,6 +10,11 @@ import {
   MinLength,
   validateSync,
 } from 'class-validator';
+
+const toBool = ({ value }: { value: unknown }): unknown =>
+  typeof value === 'string' ? ['1', 'true', 'yes', 'on'].includes(value.toLowerCase()) : value;
+const toNumber = ({ value }: { value: unknown }): unknown =>
+  value === undefined || value === '' ? undefined : Number(value);
 
 /** Every setting the server reads, checked once at boot so a typo fails fast and says why. */
 export class EnvironmentVariables {
@@ -66,6 +72,113 @@ export class EnvironmentVariables {
   @IsString()
   @MinLength(1)
   BLOB_DIR = '.data/blobs';
+
+  // Card payments (the stripe SDK). Leave STRIPE_API_HOST/PORT/PROTOCOL unset to talk to
+  // Stripe itself; outside production an unset host means the local fake
+  // (127.0.0.1:12111 over http, see src/fakes/stripe), so nothing leaves the machine.
+
+  /** Secret API key (sk_live_… or sk_test_…); the fake takes any key starting with sk_. */
+  @IsString()
+  @MinLength(4)
+  STRIPE_SECRET_KEY = 'sk_test_panelpass_local';
+
+  /** Signing secret of the webhook endpoint (whsec_…). */
+  @IsString()
+  @MinLength(8)
+  STRIPE_WEBHOOK_SECRET = 'whsec_panelpass_local_only';
+
+  @IsOptional()
+  @IsString()
+  STRIPE_API_HOST?: string;
+
+  @IsOptional()
+  @Transform(toNumber)
+  @IsInt()
+  @Min(1)
+  @Max(65535)
+  STRIPE_API_PORT?: number;
+
+  @IsOptional()
+  @IsIn(['http', 'https'])
+  STRIPE_API_PROTOCOL?: 'http' | 'https';
+
+  /** Retries of a Stripe call after a network failure (the same Idempotency-Key each time). */
+  @Transform(toNumber)
+  @IsInt()
+  @Min(0)
+  @Max(5)
+  STRIPE_MAX_NETWORK_RETRIES = 2;
+
+  /** How long one Stripe call may take. */
+  @Transform(toNumber)
+  @IsInt()
+  @Min(1000)
+  STRIPE_TIMEOUT_MS = 15_000;
+
+  // E-mail (nodemailer over SMTP). The defaults reach the local capturing server
+  // (src/fakes/smtp); point them at a relay to send for real.
+
+  @IsString()
+  MAIL_HOST = '127.0.0.1';
+
+  @Transform(toNumber)
+  @IsInt()
+  @Min(1)
+  @Max(65535)
+  MAIL_PORT = 12525;
+
+  /** TLS from the first byte (port 465); otherwise STARTTLS when the relay offers it. */
+  @Transform(toBool)
+  @IsBoolean()
+  MAIL_SECURE = false;
+
+  @IsOptional()
+  @IsString()
+  MAIL_USER?: string;
+
+  @IsOptional()
+  @IsString()
+  MAIL_PASS?: string;
+
+  /** The sender of every message. */
+  @IsString()
+  MAIL_FROM = 'Panelpass <no-reply@panelpass.example>';
+
+  /** How often the sender looks for mail to deliver (it is also nudged after each commit). */
+  @Transform(toNumber)
+  @IsInt()
+  @Min(50)
+  MAIL_POLL_MS = 2_000;
+
+  /** Wait before the first retry of a failed delivery; doubles on each failure, at most 1 h. */
+  @Transform(toNumber)
+  @IsInt()
+  @Min(10)
+  MAIL_RETRY_BASE_MS = 30_000;
+
+  /** Set to 0 to keep the sender loop off (mail stays queued). */
+  @Transform(toBool)
+  @IsBoolean()
+  MAIL_SENDER = true;
+
+  /**
+   * The dev inbox (GET /api/dev/mail) reads what the capturing SMTP server stored here. It is
+   * on outside production, or in production with MAIL_CAPTURE=1.
+   */
+  @IsString()
+  @MinLength(1)
+  MAIL_CAPTURE_DIR = '.data/mail';
+
+  @Transform(toBool)
+  @IsBoolean()
+  MAIL_CAPTURE = false;
+
+  /** How long a customer's sign-in link stays good. */
+  @Transform(toNumber)
+  @IsInt()
+  @Min(1)
+  @Max(24 * 30)
+  CUSTOMER_LINK_HOURS = 72;
 }
 
 export function validateEnv(config: Record<string, unknown>): EnvironmentVariables {

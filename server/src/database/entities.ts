@@ -6,13 +6,16 @@ import { ChipLayer } from '../chips/chip-layer.entity';
 import { Chip } from '../chips/chip.entity';
 import { ClimateReading } from '../climate/climate-reading.entity';
 import { Customer } from '../customers/customer.entity';
+import { CustomerLink } from '../customer-links/customer-link.entity';
 import { Invite } from '../invites/invite.entity';
 import { Invoice } from '../invoices/invoice.entity';
 import { Job } from '../jobs/job.entity';
+import { OutboundMail } from '../mail/outbound-mail.entity';
 import { MaskingItem } from '../masking/masking-item.entity';
 import { JobPanel } from '../panels/job-panel.entity';
 import { CorrectionPass } from '../passes/correction-pass.entity';
 import { Payment } from '../payments/payment.entity';
+import { PaymentEvent } from '../payments/payment-event.entity';
 import { StoredBlob } from '../photos/blob.entity';
 import { Photo } from '../photos/photo.entity';
 import { DamagePin } from '../pins/damage-pin.entity';
@@ -61,4 +64,7 @@ export const entities = [
   SyncRejection,
   User,
   Vehicle,
+  OutboundMail,
+  CustomerLink,
+  PaymentEvent,
 ];

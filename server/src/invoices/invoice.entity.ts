@@ -35,4 +35,8 @@ export class Invoice extends SyncedEntity {
 
   @Column({ type: 'jsonb', default: () => "'[]'" })
   lines: JsonObject[];
+
+  /** How the tax was worked out, in words ("Tax 8 % on the taxable total, rounded half-up"). */
+  @Column({ type: 'text', default: '' })
+  taxLabel: string;
 }

@@ -5,6 +5,7 @@ import { SyncedEntity } from '../database/synced.entity';
 @Entity('payments')
 @Index('payments_sync_idx', ['businessId', 'version'])
 @Index('payments_job_id_idx', ['jobId'])
+@Index('payments_provider_intent_idx', ['providerIntent'])
 @Unique('payments_business_id_op_id_key', ['businessId', 'opId'])
 export class Payment extends SyncedEntity {
   @Column({ type: 'uuid', nullable: true })
@@ -45,4 +46,16 @@ export class Payment extends SyncedEntity {
 
   @Column({ type: 'uuid', nullable: true })
   recordedBy: string | null;
+
+  /** Card payments: the provider's payment intent (`pi_…`), known once the customer pays. */
+  @Column({ type: 'text', nullable: true })
+  providerIntent: string | null;
+
+  /** Refunds: the payment given back. */
+  @Column({ type: 'uuid', nullable: true })
+  refundOf: string | null;
+
+  /** Card payment links: when the link stops taking payments. */
+  @Column({ type: 'timestamptz', nullable: true })
+  expiresAt: Date | null;
 }
