@@ -9,6 +9,7 @@ import {
   type Substrate,
   type ThicknessUnit,
 } from '@panelpass/shared';
+import { Glyph } from '../../../components/Glyph';
 import { Notice, type NoticeTone } from '../../../components/Notice';
 import { useChanges } from '../../../sync/useChanges';
 import {
@@ -210,6 +211,7 @@ export function ReadingSheet({
               ) : null}
               {(panel.flags?.flags ?? []).length ? (
                 <p className="pp-flag-words">
+                  <Glyph name="alert" size={24} />
                   {(panel.flags?.flags ?? []).map((flag) => FLAG_WORDS[flag]).join(' · ')}
                 </p>
               ) : null}
