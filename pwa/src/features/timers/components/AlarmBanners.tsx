@@ -55,8 +55,11 @@ export function AlarmBanners({
           </span>
           <span className="pp-alarm__label">
             <IonIcon icon={KIND_ICONS[kind]} aria-hidden="true" />
+            {/* "Flush: Flush the sap remover…" says it twice: the kind word only when new. */}
             <span>
-              {KIND_WORDS[kind]}: {label}
+              {label.toLowerCase().startsWith(KIND_WORDS[kind].toLowerCase())
+                ? label
+                : `${KIND_WORDS[kind]}: ${label}`}
             </span>
           </span>
           <span className="pp-alarm__when">

@@ -1,8 +1,10 @@
 import { IonButton, IonContent, IonHeader, IonIcon, IonModal, IonToolbar } from '@ionic/react';
 import { addOutline, notificationsOutline, phonePortraitOutline } from 'ionicons/icons';
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import type { TimerRow } from '@panelpass/shared';
 import { Notice } from '../../../components/Notice';
+import { useChanges } from '../../../sync/useChanges';
+import { timerState } from '../model/timerWords';
 import { useKeepScreenOn, wakeLockSupported } from '../hooks/useWakeLock';
 import { askNotifyPermission, notifyPermission, type NotifyPermission } from '../model/notify';
 import { TimerCard } from './TimerCard';
@@ -35,6 +37,7 @@ export function TimerSheet({
   wakeLockHeld,
 }: TimerSheetProps) {
   const [starting, setStarting] = useState(false);
+  const ended = timers.filter((t) => timerState(t, nowMs) === 'ended');
   return (
     <IonModal isOpen={isOpen} onDidDismiss={onClose} aria-labelledby="pp-timers-title">
       <IonHeader>
@@ -51,6 +54,7 @@ export function TimerSheet({
       </IonHeader>
       <IonContent>
         <div className="pp-page pp-timers">
+          {ended.length > 1 ? <AcknowledgeAll ended={ended} /> : null}
           {timers.length ? (
             <ul className="pp-timers__list">
               {timers.map((t) => (
@@ -79,6 +83,42 @@ export function TimerSheet({
         <StartTimerSheet isOpen={starting} onClose={() => setStarting(false)} />
       </IonContent>
     </IonModal>
+  );
+}
+
+/** Several alarms at once (after a long time away): acknowledge them all, on a second tap. */
+function AcknowledgeAll({ ended }: { ended: readonly TimerRow[] }) {
+  const { changes } = useChanges();
+  const [confirm, setConfirm] = useState(false);
+  const [busy, setBusy] = useState(false);
+  useEffect(() => {
+    if (!confirm) return;
+    const t = window.setTimeout(() => setConfirm(false), 4000);
+    return () => window.clearTimeout(t);
+  }, [confirm]);
+  return (
+    <button
+      type="button"
+      className="pp-button pp-button--quiet"
+      disabled={busy}
+      onClick={() => {
+        if (!confirm) {
+          setConfirm(true);
+          return;
+        }
+        setBusy(true);
+        void (async () => {
+          for (const t of ended) await changes.ackTimer({ id: t.id });
+        })().finally(() => {
+          setBusy(false);
+          setConfirm(false);
+        });
+      }}
+    >
+      {confirm
+        ? `Tap again to acknowledge all ${ended.length}`
+        : `Acknowledge all ${ended.length} ended timers`}
+    </button>
   );
 }
 
