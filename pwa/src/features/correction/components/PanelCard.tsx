@@ -3,6 +3,7 @@ import { StateTag } from '../../prep/kit/StateTag';
 import type { StageUnits } from '../../prep/kit/units';
 import {
   asPanelState,
+  budgetApplies,
   FINISHES,
   HARDNESSES,
   labelOf,
@@ -60,7 +61,11 @@ export function PanelCard({
           {passCount === 0 ? 'no passes' : `${passCount} pass set${passCount === 1 ? '' : 's'}`}
         </span>
       </span>
-      {budget ? <BudgetBar budget={budget} unit={units.thickness} /> : null}
+      {budget && budgetApplies(panel.finish) ? (
+        <BudgetBar budget={budget} unit={units.thickness} />
+      ) : (
+        <span className="pp-card__meta">No clear coat to budget on this finish.</span>
+      )}
     </button>
   );
 }

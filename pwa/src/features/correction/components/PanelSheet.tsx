@@ -10,6 +10,7 @@ import type { StageUnits } from '../../prep/kit/units';
 import { panelBudget, passCheck, passesInOrder, stepLabel } from '../model/budget';
 import {
   asPanelState,
+  budgetApplies,
   FINISHES,
   HARDNESSES,
   labelOf,
@@ -64,9 +65,12 @@ export function PanelSheet({
 
   const unit = units.thickness;
   const mine = passesInOrder(panel.id, passes);
-  const budget = panelBudget(panel, readings, passes, unit);
+  // Chrome, vinyl and textured plastic have no clear coat: no budget, no warning.
+  const applies = budgetApplies(panel.finish);
+  const budget = applies ? panelBudget(panel, readings, passes, unit) : null;
   const proposal = { step: draft.step, passes: draft.passes };
-  const proposed = mode === 'log' ? panelBudget(panel, readings, passes, unit, proposal) : null;
+  const proposed =
+    applies && mode === 'log' ? panelBudget(panel, readings, passes, unit, proposal) : null;
   const spots = latestSpots(panel.id, readings);
   const padsUsed = [...new Set(passes.map((p) => p.pad).filter(Boolean))].slice(-4);
   const productName = (id: string | null) => products.find((p) => p.id === id)?.name ?? null;
@@ -177,7 +181,12 @@ export function PanelSheet({
               ? ''
               : ` · after ${units.formatThickness(Math.round(spots.after))}`}
           </p>
-          {budget ? (
+          {!applies ? (
+            <Notice tone="info">
+              {labelOf(FINISHES, panel.finish)} has no clear coat to budget; correct it only as its
+              own care instructions allow.
+            </Notice>
+          ) : budget ? (
             <section className="pp-stage-section" aria-label="Clear-coat budget">
               <BudgetBar budget={budget} unit={unit} large />
               <details className="pp-why">

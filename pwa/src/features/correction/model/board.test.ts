@@ -1,6 +1,6 @@
 import type { JobPanelRow } from '@panelpass/shared';
 import { describe, expect, it } from 'vitest';
-import { panelsByBand, progressOf, stepForProductKind } from './board';
+import { budgetApplies, panelsByBand, progressOf, stepForProductKind } from './board';
 
 function panel(id: string, band: string, position: number, state = 'todo'): JobPanelRow {
   return {
@@ -52,6 +52,13 @@ describe('the panel board', () => {
     expect(words).toBe('1 of 3 panels done · 1 working · 1 skipped');
     expect(progress?.nextPanelId).toBe('b');
     expect(Math.round(progress?.percentDone ?? 0)).toBe(33);
+  });
+
+  it('budgets clear coat only where there is one (not chrome, vinyl or textured plastic)', () => {
+    expect(budgetApplies('clear-coat')).toBe(true);
+    expect(budgetApplies('gloss-black-trim')).toBe(true);
+    expect(budgetApplies('chrome')).toBe(false);
+    expect(budgetApplies('textured-plastic')).toBe(false);
   });
 
   it('suggests the budget step from the product’s kind on the Shelf', () => {

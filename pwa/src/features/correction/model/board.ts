@@ -118,6 +118,14 @@ export const SUBSTRATE_WORDS: Record<string, string> = {
   unknown: 'substrate not known',
 };
 
+/** Finishes with no clear coat to budget: nothing to cut through with a machine pass. */
+const NO_CLEAR = ['chrome', 'vinyl', 'textured-plastic'];
+
+/** Whether the clear-coat budget means anything for a panel of this finish. */
+export function budgetApplies(finish: string): boolean {
+  return !NO_CLEAR.includes(finish);
+}
+
 export const labelOf = (options: readonly Option[], value: string | null) =>
   options.find((o) => o.value === value)?.label ?? value ?? '';
 
