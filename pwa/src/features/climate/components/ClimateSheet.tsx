@@ -77,7 +77,7 @@ export function ClimateSheet({
       : [];
 
   return (
-    <IonModal isOpen={isOpen} onDidDismiss={onClose} aria-labelledby="pp-climate-title">
+    <IonModal isOpen={isOpen} onDidDismiss={onClose} aria-label="Climate now">
       <IonHeader>
         <IonToolbar>
           <div className="pp-header">

@@ -51,7 +51,7 @@ export function FieldSettingsSheet({ isOpen, onClose }: { isOpen: boolean; onClo
         save.reset();
       }}
       onDidDismiss={onClose}
-      aria-labelledby="pp-settings-title"
+      aria-label="Units and drive times"
     >
       <IonHeader>
         <IonToolbar>

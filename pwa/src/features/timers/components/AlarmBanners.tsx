@@ -46,7 +46,6 @@ export function AlarmBanners({
           type="button"
           className="pp-alarm__words"
           aria-haspopup="dialog"
-          aria-label={`${look.word}: ${KIND_WORDS[kind]}, ${label}${job ? `, ${job}` : ''}, ended ${clock(t.endsAt)}. Show all timers.`}
           onClick={onShowAll}
         >
           <span className="pp-alarm__head">
@@ -66,6 +65,7 @@ export function AlarmBanners({
             ended {clock(t.endsAt)} · {remainingText(t, nowMs)}
             {job ? ` · ${job}` : ''}
           </span>
+          <span className="pp-timer__spoken">. Show all timers.</span>
         </button>
         <div className="pp-alarm__buttons">
           <button

@@ -110,7 +110,7 @@ export function StartTimerSheet({
   }
 
   return (
-    <IonModal isOpen={isOpen} onDidDismiss={onClose} aria-labelledby="pp-start-timer-title">
+    <IonModal isOpen={isOpen} onDidDismiss={onClose} aria-label="Start a timer">
       <IonHeader>
         <IonToolbar>
           <div className="pp-header">

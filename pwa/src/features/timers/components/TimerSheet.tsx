@@ -39,7 +39,7 @@ export function TimerSheet({
   const [starting, setStarting] = useState(false);
   const ended = timers.filter((t) => timerState(t, nowMs) === 'ended');
   return (
-    <IonModal isOpen={isOpen} onDidDismiss={onClose} aria-labelledby="pp-timers-title">
+    <IonModal isOpen={isOpen} onDidDismiss={onClose} aria-label="Timers">
       <IonHeader>
         <IonToolbar>
           <div className="pp-header">
