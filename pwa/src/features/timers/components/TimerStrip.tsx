@@ -26,13 +26,11 @@ export function TimerStrip({
 }) {
   const kind = kindOf(nearest);
   const paused = timerState(nearest, nowMs) === 'paused';
-  const spoken = `${KIND_WORDS[kind]}: ${nearest.label}, ${remainingSpoken(nearest, nowMs)}${more ? `, and ${more} more` : ''}. Show all timers.`;
   return (
     <button
       type="button"
       className={`pp-strip${paused ? ' pp-strip--paused' : ''}`}
       aria-haspopup="dialog"
-      aria-label={spoken}
       onClick={onOpen}
     >
       <span className="pp-strip__kind">
@@ -40,8 +38,12 @@ export function TimerStrip({
         <span>{paused ? `${KIND_WORDS[kind]} · paused` : KIND_WORDS[kind]}</span>
       </span>
       <span className="pp-strip__label">{nearest.label || KIND_WORDS[kind]}</span>
-      <span className="pp-strip__time">{remainingText(nearest, nowMs)}</span>
+      <span className="pp-strip__time" aria-hidden="true">
+        {remainingText(nearest, nowMs)}
+      </span>
+      <span className="pp-timer__spoken">, {remainingSpoken(nearest, nowMs)}</span>
       {more ? <span className="pp-strip__more">+{more} more</span> : null}
+      <span className="pp-timer__spoken">. Show all timers.</span>
     </button>
   );
 }
