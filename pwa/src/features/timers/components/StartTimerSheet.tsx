@@ -130,11 +130,11 @@ export function StartTimerSheet({
           noValidate
           onSubmit={(e) => void start(e)}
         >
-          <fieldset className="pp-choice">
+          <fieldset className="pp-timer-kinds">
             <legend className="pp-field__label">Kind</legend>
-            <div className="pp-choice__options">
+            <div className="pp-timer-kinds__options">
               {STARTABLE.map((k) => (
-                <label key={k} className="pp-choice__option">
+                <label key={k} className="pp-timer-kinds__option">
                   <input
                     type="radio"
                     name="timer-kind"
@@ -158,12 +158,12 @@ export function StartTimerSheet({
             onChange={(e) => setMinutes(e.target.value)}
             problem={minutesProblem}
           />
-          <div className="pp-quick" role="group" aria-label="Quick minutes">
+          <div className="pp-timer-quick" role="group" aria-label="Quick minutes">
             {QUICK_MINUTES.map((m) => (
               <button
                 key={m}
                 type="button"
-                className="pp-quick__button"
+                className="pp-timer-quick__button"
                 aria-pressed={typed === m}
                 onClick={() => setMinutes(String(m))}
               >
@@ -189,7 +189,7 @@ export function StartTimerSheet({
               <div className="pp-field__control">
                 <select
                   id="pp-start-timer-job"
-                  className="pp-field__input pp-select"
+                  className="pp-field__input pp-timer-select"
                   value={jobId || NO_JOB}
                   onChange={(e) => setPickedJob(e.target.value)}
                 >

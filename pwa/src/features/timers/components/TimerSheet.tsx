@@ -159,13 +159,13 @@ export function AlarmSettings({ wakeLockHeld }: { wakeLockHeld: boolean }) {
         </button>
       )}
       {wakeLockSupported() ? (
-        <label className="pp-toggle">
+        <label className="pp-timer-toggle">
           <input type="checkbox" checked={keepOn} onChange={(e) => setKeepOn(e.target.checked)} />
           <IonIcon icon={phonePortraitOutline} aria-hidden="true" />
           <span>
             Keep the screen on while a timer runs
             {keepOn ? (
-              <span className="pp-toggle__state">
+              <span className="pp-timer-toggle__state">
                 {wakeLockHeld ? ' — on now' : ' — when a timer runs'}
               </span>
             ) : null}
