@@ -97,7 +97,7 @@ export default function JobsList() {
           <p>Try fewer words, or another stage.</p>
           <button
             type="button"
-            className="pp-button pp-button--quiet"
+            className="pp-button pp-button--outline-go"
             onClick={() => {
               setQuery('');
               setStage('all');

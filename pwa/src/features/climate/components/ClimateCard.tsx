@@ -64,7 +64,11 @@ export function ClimateCard({
           ) : null}
         </>
       )}
-      <button type="button" className="pp-button pp-button--quiet" onClick={() => setOpen(true)}>
+      <button
+        type="button"
+        className="pp-button pp-button--outline-go"
+        onClick={() => setOpen(true)}
+      >
         Take a climate reading
       </button>
       <ClimateSheet

@@ -111,7 +111,7 @@ export function TimerCard({ timer, nowMs, missed, jobWords, onOpenJob }: TimerCa
             ) : (
               <button
                 type="button"
-                className="pp-button pp-button--quiet"
+                className="pp-button pp-button--outline-go"
                 disabled={busy}
                 onClick={() => void run(() => changes.pauseTimer({ id: timer.id }))}
               >
@@ -121,7 +121,7 @@ export function TimerCard({ timer, nowMs, missed, jobWords, onOpenJob }: TimerCa
             )}
             <button
               type="button"
-              className={`pp-button pp-button--quiet${confirmStop ? ' pp-button--stop' : ''}`}
+              className={`pp-button pp-button--outline-go${confirmStop ? ' pp-button--confirm-stop' : ''}`}
               disabled={busy}
               aria-live="polite"
               onClick={() => {

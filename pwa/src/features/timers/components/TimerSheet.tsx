@@ -99,7 +99,7 @@ function AcknowledgeAll({ ended }: { ended: readonly TimerRow[] }) {
   return (
     <button
       type="button"
-      className="pp-button pp-button--quiet"
+      className="pp-button pp-button--outline-go"
       disabled={busy}
       onClick={() => {
         if (!confirm) {
@@ -151,7 +151,7 @@ export function AlarmSettings({ wakeLockHeld }: { wakeLockHeld: boolean }) {
       ) : (
         <button
           type="button"
-          className="pp-button pp-button--quiet"
+          className="pp-button pp-button--outline-go"
           onClick={() => void askNotifyPermission().then(setPermission)}
         >
           <IonIcon icon={notificationsOutline} aria-hidden="true" />

@@ -78,7 +78,7 @@ export function TimersNow({ jobWords }: { jobWords: (jobId: string) => string | 
       )}
       <button
         type="button"
-        className="pp-button pp-button--quiet"
+        className="pp-button pp-button--outline-go"
         onClick={() => setStarting(true)}
       >
         <IonIcon icon={addOutline} aria-hidden="true" />
