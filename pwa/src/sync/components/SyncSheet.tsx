@@ -90,7 +90,7 @@ export function SyncSheet({ isOpen, onClose }: { isOpen: boolean; onClose: () =>
   }
 
   return (
-    <IonModal isOpen={isOpen} onDidDismiss={onClose} aria-labelledby="pp-sync-title">
+    <IonModal isOpen={isOpen} onDidDismiss={onClose} aria-label="Saving to the server">
       <IonHeader>
         <IonToolbar>
           <div className="pp-header">
