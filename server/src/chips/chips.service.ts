@@ -86,8 +86,10 @@ export class ChipsService implements OnModuleInit {
   /** One layer; takes the paint's use from stock once; answers the chip's new schedule. */
   async addLayer(ctx: CommandContext, a: AddLayerDto): Promise<LayerAnswer> {
     const { actor, m } = ctx;
+    // A layer is a new record of its own (allowed after sign-off); a closed job takes none.
     const { row: chip, job } = await recordOnJob(m, actor, Chip, a.chipId, 'Chip', {
       allowClosed: true,
+      allowSigned: true,
     });
     const existing = await alreadyCreated(m, ChipLayer, actor, a.id);
     if (existing) {

@@ -30,10 +30,17 @@ import {
   SetStageDto,
   UpdateJobDto,
 } from './dto/job.dto';
+import { refuseIfSigned } from '../workspace/field';
 import { Job } from './job.entity';
 
 /** Fields a helper may change on a job assigned to them. */
 const TECH_EDITABLE = new Set(['conditionNotes', 'notes', 'expectedVersion', 'id']);
+
+/**
+ * Work that closes a job with it, in the same transaction, before the stage changes (issuing
+ * its invoice, queueing the customer's receipt and report).
+ */
+export type CloseHook = (ctx: CommandContext, job: Job) => Promise<void>;
 
 export interface JobSummary extends Omit<Job, 'priceMinor'> {
   /** Absent for a helper: they see what is due, not the price. */
@@ -45,6 +52,8 @@ export interface JobSummary extends Omit<Job, 'priceMinor'> {
 
 @Injectable()
 export class JobsService implements OnModuleInit {
+  private readonly closeHooks: CloseHook[] = [];
+
   constructor(
     @InjectDataSource() private readonly db: DataSource,
     private readonly bus: CommandBus,
@@ -83,6 +92,11 @@ export class JobsService implements OnModuleInit {
         run: (c, a) => this.remove(c, a),
       }),
     );
+  }
+
+  /** Runs `hook` whenever a job closes (see CloseHook). */
+  onClose(hook: CloseHook): void {
+    this.closeHooks.push(hook);
   }
 
   /** A new visit, with its panels from the body-style template and the default checklist. */
@@ -159,15 +173,17 @@ export class JobsService implements OnModuleInit {
       );
     }
     checkWindow(fields.windowStart ?? job.windowStart, fields.windowEnd ?? job.windowEnd);
+    // The condition notes are part of the signed record (a correction is a new record).
+    if (fields.conditionNotes !== undefined && fields.conditionNotes !== job.conditionNotes) {
+      await refuseIfSigned(m, job.id);
+    }
     if (Object.keys(fields).length) await m.update(Job, { id }, fields);
     return m.findOneByOrFail(Job, { id });
   }
 
   /** Moves the job along its stages; a move the table does not allow is a 409 naming the allowed ones. */
-  async setStage(
-    { actor, m }: CommandContext,
-    { id, stage, expectedVersion }: SetStageDto,
-  ): Promise<Job> {
+  async setStage(ctx: CommandContext, { id, stage, expectedVersion }: SetStageDto): Promise<Job> {
+    const { actor, m } = ctx;
     const job = await jobInScope(m, actor, id);
     checkVersion(job, expectedVersion, 'job');
     if (job.stage === stage) return job;
@@ -182,6 +198,7 @@ export class JobsService implements OnModuleInit {
         { from: job.stage, to: stage, allowed },
       );
     }
+    if (stage === 'closed') for (const hook of this.closeHooks) await hook(ctx, job);
     await m.update(Job, { id }, { stage });
     return m.findOneByOrFail(Job, { id });
   }

@@ -77,7 +77,10 @@ export class MaskingService implements OnModuleInit {
 
   /** Taken off: sets the time once (a second remove changes nothing). */
   async remove({ actor, m }: CommandContext, a: RemoveMaskDto): Promise<MaskAnswer> {
-    const { row } = await recordOnJob(m, actor, MaskingItem, a.id, 'Masking item');
+    // Taking tape off records what happened to the car; it must never be blocked by a signature.
+    const { row } = await recordOnJob(m, actor, MaskingItem, a.id, 'Masking item', {
+      allowSigned: true,
+    });
     if (row.removedAt) return this.answer(m, row);
     const at = whenOrNow(a.at, 'at');
     if (at.getTime() < row.appliedAt.getTime()) {

@@ -113,7 +113,10 @@ export class SolventsService implements OnModuleInit {
 
   /** Flushed off: sets the time once (a second flush changes nothing) and silences its timer. */
   async flush({ actor, m }: CommandContext, a: FlushSolventDto): Promise<SolventAnswer> {
-    const { row } = await recordOnJob(m, actor, SolventApplication, a.id, 'Solvent application');
+    // Flushing a solvent off is a safety step; it must never be blocked by a signature.
+    const { row } = await recordOnJob(m, actor, SolventApplication, a.id, 'Solvent application', {
+      allowSigned: true,
+    });
     if (row.flushedAt) return this.answer(m, row);
     const at = whenOrNow(a.at, 'at');
     if (at.getTime() < row.appliedAt.getTime()) {

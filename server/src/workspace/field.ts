@@ -8,6 +8,7 @@ import type { SyncedEntity } from '../database/synced.entity';
 import type { Job } from '../jobs/job.entity';
 import { JobPanel } from '../panels/job-panel.entity';
 import { Product } from '../products/product.entity';
+import { Signature } from '../signatures/signature.entity';
 
 /**
  * Rules every field record of a job shares (pins, readings, passes, chips, solvents,
@@ -31,6 +32,26 @@ export async function openJob(m: EntityManager, actor: Actor, jobId: string): Pr
   const job = await jobInScope(m, actor, jobId);
   if (job.stage === 'closed') throw jobClosed();
   return job;
+}
+
+/**
+ * A signed record cannot be edited: once the customer has signed the work off at handover
+ * (an acceptance signature on the job), a change to what was recorded is refused with 409
+ * `signed-record`. New records are still taken — a correction is a new record.
+ */
+export async function refuseIfSigned(m: EntityManager, jobId: string): Promise<void> {
+  const signed = await m.findOne(Signature, {
+    where: { jobId, kind: 'acceptance' },
+    order: { signedAt: 'ASC' },
+  });
+  if (signed) {
+    throw new AppException(
+      HttpStatus.CONFLICT,
+      'signed-record',
+      `The customer signed this job off on ${signed.signedAt.toISOString()}; what was signed cannot be changed. A correction is a new record: add one instead.`,
+      { signatureId: signed.id, signedAt: signed.signedAt },
+    );
+  }
 }
 
 /**
@@ -61,8 +82,9 @@ export async function startCreate<
 
 /**
  * A record hanging off a job, for a change: of the business and of a job in the actor's
- * scope (else 404 naming the record), and the job open (else 409 `job-closed`, unless
- * `allowClosed`).
+ * scope (else 404 naming the record), the job open (else 409 `job-closed`, unless
+ * `allowClosed`), and the job not yet signed off (else 409 `signed-record`, unless
+ * `allowSigned`: for changes that add to the record rather than rewrite it).
  */
 export async function recordOnJob<T extends SyncedEntity & ObjectLiteral & { jobId: string }>(
   m: EntityManager,
@@ -70,13 +92,14 @@ export async function recordOnJob<T extends SyncedEntity & ObjectLiteral & { job
   entity: EntityTarget<T>,
   id: string,
   what: string,
-  opts: { allowClosed?: boolean } = {},
+  opts: { allowClosed?: boolean; allowSigned?: boolean } = {},
 ): Promise<{ row: T; job: Job }> {
   const row = await findInBusiness(m, entity, actor, id, what);
   const job = await jobInScope(m, actor, row.jobId).catch((e: unknown) => {
     throw e instanceof AppException && e.getStatus() === 404 ? notFound(what) : e;
   });
   if (job.stage === 'closed' && !opts.allowClosed) throw jobClosed();
+  if (!opts.allowSigned) await refuseIfSigned(m, job.id);
   return { row, job };
 }
 

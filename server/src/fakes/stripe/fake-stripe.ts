@@ -143,7 +143,8 @@ export interface Delivery {
   type: string;
   /** Whether this delivery is the extra copy of one already delivered. */
   duplicate: boolean;
-  attempts: { at: number; status: number | null; error?: string }[];
+  /** Each try: the receiver's status (null: no answer) and the start of its answer. */
+  attempts: { at: number; status: number | null; body?: string; error?: string }[];
   delivered: boolean;
 }
 
@@ -246,7 +247,10 @@ export class FakeStripe {
   private apiVersion = '2026-10-28.endive';
   private base = '';
 
-  constructor(private readonly opts: FakeStripeOptions) {
+  private readonly opts: FakeStripeOptions;
+
+  constructor(opts: FakeStripeOptions) {
+    this.opts = { ...opts };
     this.random = seeded(opts.seed ?? Date.now());
     this.now = opts.now ?? Date.now;
   }
@@ -285,6 +289,16 @@ export class FakeStripe {
     if (!server) return;
     server.closeAllConnections();
     await new Promise<void>((resolve) => server.close(() => resolve()));
+  }
+
+  /** Where events go from now on (null: nowhere). */
+  setWebhook(url: string | null): void {
+    this.opts.webhookUrl = url;
+  }
+
+  /** The chance of a second delivery from now on. */
+  setDuplicateRate(rate: number): void {
+    this.opts.duplicateRate = rate;
   }
 
   /** The next `count` API calls are carried out but their answers never arrive (the socket is cut). */
@@ -814,8 +828,8 @@ export class FakeStripe {
           body: payload,
           signal: AbortSignal.timeout(10_000),
         });
-        await res.arrayBuffer();
-        delivery.attempts.push({ at, status: res.status });
+        const answer = (await res.text()).slice(0, 500);
+        delivery.attempts.push({ at, status: res.status, body: answer });
         if (res.ok) {
           delivery.delivered = true;
           break;
