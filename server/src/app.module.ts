@@ -35,6 +35,10 @@ import { ReadingsModule } from './readings/readings.module';
 import { SolventsModule } from './solvents/solvents.module';
 import { TimersModule } from './timers/timers.module';
 import { WorkspaceModule } from './workspace/workspace.module';
+import { MailModule } from './mail/mail.module';
+import { DocumentsModule } from './documents/documents.module';
+import { HandoverModule } from './handover/handover.module';
+import { CustomerLinksModule } from './customer-links/customer-links.module';
 
 @Module({
   imports: [
@@ -45,6 +49,7 @@ import { WorkspaceModule } from './workspace/workspace.module';
         dataSourceOptions(config.get('DATABASE_URL', { infer: true })),
     }),
     CommandsModule,
+    MailModule,
     AuthModule,
     InvitesModule,
     CustomersModule,
@@ -68,6 +73,9 @@ import { WorkspaceModule } from './workspace/workspace.module';
     InvoicesModule,
     PhotosModule,
     SignaturesModule,
+    DocumentsModule,
+    HandoverModule,
+    CustomerLinksModule,
     AuditModule,
     SyncModule,
     HealthModule,

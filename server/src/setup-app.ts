@@ -20,6 +20,9 @@ export function buildOpenApi(app: INestApplication): OpenAPIObject {
 export function setupApp(app: NestExpressApplication, pwaDist?: string): void {
   app.setGlobalPrefix('api');
   app.disable('x-powered-by');
+  // The payment webhook's signature is over the exact bytes sent: keep them (before the JSON
+  // parser, which Nest adds at init and which then leaves this already-read body alone).
+  app.use('/api/payments/webhook', express.raw({ type: () => true, limit: '1mb' }));
   app.set('trust proxy', 'loopback');
   app.use(
     helmet({

@@ -2,7 +2,13 @@ import type { NestExpressApplication } from '@nestjs/platform-express';
 import { canonicalJson, childId } from '@panelpass/shared';
 import { createHash, randomUUID } from 'node:crypto';
 import { deflateSync } from 'node:zlib';
-import { DataSource } from 'typeorm';
+import { mkdtemp, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { CaptureStore } from '../src/fakes/smtp/capture-store';
+import { FakeStripe } from '../src/fakes/stripe/fake-stripe';
+import { TEST_CARDS } from '../src/fakes/stripe/payment-page';
+import { signatureHeader } from '../src/fakes/stripe/signature';
 import { buildOpenApi } from '../src/setup-app';
 import { signInCustomer } from './factories/customers';
 import { type JobFixture, makeJob } from './factories/records';
@@ -60,7 +66,11 @@ interface World {
   quoteA: string;
   blobA: string;
   invoiceA: string;
+  stripe: FakeStripe;
+  mailA: string;
 }
+
+const WEBHOOK_SECRET = 'whsec_permissions_matrix';
 
 const bearer = { type: 'bearer' as const };
 const day = 86_400_000;
@@ -201,6 +211,39 @@ const fresh = {
   async tech(w: World) {
     return (await addTech(w.app, w.s.owner, 'gone')).user.id;
   },
+  /** A card payment of business A that went through (paid on the fake's page, webhook sent). */
+  async cardPayment(w: World) {
+    const jobId = await fresh.job(w);
+    const asked = await ok(w, 'post', `/api/jobs/${jobId}/payment-requests`, {
+      id: randomUUID(),
+      opId: randomUUID(),
+      kind: 'deposit',
+      amountMinor: 2_000,
+    });
+    const seen = w.stripe.events.length;
+    const paid = await fetch(String(asked.checkoutUrl), {
+      method: 'POST',
+      redirect: 'manual',
+      headers: { 'Content-Type': 'application/x-www-form-urlencoded' },
+      body: new URLSearchParams({ card: TEST_CARDS.succeeds, exp: '10/38', cvc: '123' }).toString(),
+    });
+    if (paid.status !== 303) throw new Error(`setup: card page answered ${paid.status}`);
+    for (const event of w.stripe.events.slice(seen)) {
+      const body = JSON.stringify(event);
+      const sig = signatureHeader(body, WEBHOOK_SECRET, Math.floor(Date.now() / 1000));
+      await http(w.app)
+        .post('/api/payments/webhook')
+        .set('Content-Type', 'application/json')
+        .set('Stripe-Signature', sig)
+        .send(body)
+        .expect(200);
+    }
+    return String((asked.payment as { id: string }).id);
+  },
+  async customerLinkToken(w: World) {
+    const link = await ok(w, 'post', '/api/customer-links', { customerId: w.jobA.customerId });
+    return String(link.link).split('/c/')[1]!;
+  },
 };
 
 const e = (...s: Row['expect']) => s;
@@ -274,6 +317,26 @@ const MATRIX: Record<string, Row> = {
     req: async (w) => ({ method: 'delete', path: `/api/customers/${await fresh.customer(w)}` }),
     expect: e(204, 403, 403, 403, 403, 404),
   },
+  'POST /api/customer-links': {
+    req: (w) => ({
+      method: 'post',
+      path: '/api/customer-links',
+      body: { customerId: w.jobA.customerId },
+    }),
+    expect: e(201, 403, 403, 403, 403, 404),
+  },
+  'GET /api/dev/mail': {
+    req: () => ({ method: 'get', path: '/api/dev/mail' }),
+    expect: e(200, 403, 403, 403, 403, 200),
+  },
+  'GET /api/dev/mail/{id}': {
+    req: (w) => ({ method: 'get', path: `/api/dev/mail/${w.mailA}` }),
+    expect: e(200, 403, 403, 403, 403, 404),
+  },
+  'GET /api/dev/mail/{id}/attachments/{index}': {
+    req: (w) => ({ method: 'get', path: `/api/dev/mail/${w.mailA}/attachments/0` }),
+    expect: e(200, 403, 403, 403, 403, 404),
+  },
   'GET /api/customers/{id}': {
     req: (w) => ({ method: 'get', path: `/api/customers/${w.jobA.customerId}` }),
     expect: e(200, 403, 403, 403, 403, 404),
@@ -309,6 +372,18 @@ const MATRIX: Record<string, Row> = {
   'GET /api/invoices/{id}': {
     req: (w) => ({ method: 'get', path: `/api/invoices/${w.invoiceA}` }),
     expect: e(200, 403, 403, 403, 403, 404),
+  },
+  'POST /api/invoices': {
+    req: async (w) => ({
+      method: 'post',
+      path: '/api/invoices',
+      body: { id: randomUUID(), jobId: await fresh.job(w) },
+    }),
+    expect: e(201, 403, 403, 403, 403, 404),
+  },
+  'GET /api/invoices/{id}/pdf': {
+    req: (w) => ({ method: 'get', path: `/api/invoices/${w.invoiceA}/pdf` }),
+    expect: e(200, 403, 403, 200, 404, 404),
   },
   'GET /api/jobs': {
     req: () => ({ method: 'get', path: '/api/jobs' }),
@@ -359,6 +434,34 @@ const MATRIX: Record<string, Row> = {
       body: { stage: 'walkaround' },
     }),
     expect: e(200, 200, 404, 403, 403, 404),
+  },
+  'GET /api/jobs/{id}/documents': {
+    req: (w) => ({ method: 'get', path: `/api/jobs/${w.jobA.jobId}/documents` }),
+    expect: e(200, 200, 404, 200, 404, 404),
+  },
+  'GET /api/jobs/{id}/report.pdf': {
+    req: (w) => ({ method: 'get', path: `/api/jobs/${w.jobA.jobId}/report.pdf` }),
+    expect: e(200, 200, 404, 200, 404, 404),
+  },
+  'POST /api/jobs/{id}/send-report': {
+    req: (w) => ({ method: 'post', path: `/api/jobs/${w.jobA.jobId}/send-report`, body: {} }),
+    expect: e(202, 403, 403, 403, 403, 404),
+  },
+  'POST /api/jobs/{jobId}/payment-requests': {
+    req: (w) => ({
+      method: 'post',
+      path: `/api/jobs/${w.jobA.jobId}/payment-requests`,
+      body: { id: randomUUID(), opId: randomUUID(), kind: 'deposit', amountMinor: 100 },
+    }),
+    expect: e(201, 201, 404, 201, 404, 404),
+  },
+  'POST /api/payments/{id}/refunds': {
+    req: async (w, who) => ({
+      method: 'post',
+      path: `/api/payments/${who === 'owner' ? await fresh.cardPayment(w) : randomUUID()}/refunds`,
+      body: { id: randomUUID(), amountMinor: 500 },
+    }),
+    expect: e(201, 403, 403, 403, 403, 404),
   },
   'GET /api/jobs/{id}/workspace': {
     req: (w) => ({ method: 'get', path: `/api/jobs/${w.jobA.jobId}/workspace` }),
@@ -752,6 +855,21 @@ const PUBLIC: Record<string, PublicRow> = {
     },
     status: 204,
   },
+  'POST /api/payments/webhook': {
+    req: () => ({
+      method: 'post',
+      path: '/api/payments/webhook',
+      body: { id: 'evt_unsigned', type: 'payment_intent.succeeded' },
+    }),
+    status: 400,
+  },
+  'POST /api/customer-links/{token}/redeem': {
+    req: async (w) => ({
+      method: 'post',
+      path: `/api/customer-links/${await fresh.customerLinkToken(w)}/redeem`,
+    }),
+    status: 200,
+  },
   'POST /api/invites/{token}/accept': {
     req: async (w) => {
       const invite = await ok(w, 'post', '/api/invites', {
@@ -809,9 +927,18 @@ async function send(w: World, r: Req, token?: string) {
 describe('permissions matrix', () => {
   const w = {} as World;
   let routes: string[];
+  let mailDir: string;
 
   beforeAll(async () => {
-    w.app = await createTestApp();
+    w.stripe = await new FakeStripe({ webhookSecret: WEBHOOK_SECRET, duplicateRate: 0 }).start();
+    mailDir = await mkdtemp(join(tmpdir(), 'matrix-mail-'));
+    w.app = await createTestApp({
+      STRIPE_API_HOST: '127.0.0.1',
+      STRIPE_API_PORT: String(w.stripe.port),
+      STRIPE_API_PROTOCOL: 'http',
+      STRIPE_WEBHOOK_SECRET: WEBHOOK_SECRET,
+      MAIL_CAPTURE_DIR: mailDir,
+    });
     const owner = await signUpOwner(w.app, 'matrix');
     const otherOwner = await signUpOwner(w.app, 'matrix-other');
     const techAssigned = await addTech(w.app, owner, 'matrix-ta');
@@ -856,11 +983,36 @@ describe('permissions matrix', () => {
       bytes: blob.length,
     });
     w.invoiceA = randomUUID();
-    await w.app.get(DataSource).query(
-      `INSERT INTO invoices (id, business_id, job_id, number, issued_at, subtotal_minor, tax_minor, total_minor)
-       VALUES ($1, $2, $3, 1, now(), 1000, 83, 1083)`,
-      [w.invoiceA, owner.user.businessId, w.jobA.jobId],
-    );
+    await ok(w, 'post', '/api/invoices', { id: w.invoiceA, jobId: w.jobA.jobId });
+    // A message of business A in the dev inbox, as the capturing SMTP server keeps it.
+    const boundary = 'matrix-boundary';
+    const raw = [
+      'From: Shop <shop@matrix.example>',
+      'To: ada@customers.example',
+      'Subject: Receipt',
+      `X-Panelpass-Business: ${owner.user.businessId}`,
+      'MIME-Version: 1.0',
+      `Content-Type: multipart/mixed; boundary="${boundary}"`,
+      '',
+      `--${boundary}`,
+      'Content-Type: text/plain; charset=utf-8',
+      '',
+      'Thank you.',
+      `--${boundary}`,
+      'Content-Type: application/pdf; name="receipt.pdf"',
+      'Content-Disposition: attachment; filename="receipt.pdf"',
+      'Content-Transfer-Encoding: base64',
+      '',
+      Buffer.from('%PDF-1.3 matrix').toString('base64'),
+      `--${boundary}--`,
+      '',
+    ].join('\r\n');
+    w.mailA = (
+      await new CaptureStore(mailDir).save(Buffer.from(raw), {
+        from: 'shop@matrix.example',
+        to: ['ada@customers.example'],
+      })
+    ).id;
     const doc = buildOpenApi(w.app);
     routes = Object.entries(doc.paths).flatMap(([p, ops]) =>
       Object.keys(ops as object)
@@ -870,6 +1022,8 @@ describe('permissions matrix', () => {
   });
   afterAll(async () => {
     await w.app.close();
+    await w.stripe.stop();
+    await rm(mailDir, { recursive: true, force: true });
   });
 
   it('has a row for every route of the API, and no row for a route that does not exist', () => {

@@ -3,7 +3,7 @@ import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { createHash, randomUUID } from 'node:crypto';
 import { createReadStream, type ReadStream } from 'node:fs';
-import { mkdir, rename, stat, unlink, writeFile } from 'node:fs/promises';
+import { mkdir, readFile, rename, stat, unlink, writeFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { DataSource, EntityManager } from 'typeorm';
 import type { Actor } from '../auth/current-user.decorator';
@@ -128,6 +128,15 @@ export class BlobStore {
     const path = this.path(actor.businessId, sha256);
     if (!(await exists(path))) throw notFound('Image');
     return { blob, stream: createReadStream(path) };
+  }
+
+  /** A stored image's bytes, for documents made on the server (no scope check: callers check). */
+  async readBytes(businessId: string, sha256: string): Promise<Buffer | null> {
+    try {
+      return await readFile(this.path(businessId, sha256));
+    } catch {
+      return null;
+    }
   }
 
   private async customerMaySee(actor: Actor, sha256: string): Promise<boolean> {

@@ -7,5 +7,6 @@ import { WorkspaceService } from './workspace.service';
   imports: [JobsModule],
   controllers: [WorkspaceController],
   providers: [WorkspaceService],
+  exports: [WorkspaceService],
 })
 export class WorkspaceModule {}

@@ -11,6 +11,8 @@ export function useTestEnv(overrides: Record<string, string> = {}): void {
     NODE_ENV: 'test',
     JWT_SECRET: TEST_JWT_SECRET,
     SIGN_IN_LIMIT: '1000',
+    // No mail leaves a test unless it starts its own capturing server (see support/money.ts).
+    MAIL_SENDER: '0',
     ...overrides,
   });
 }

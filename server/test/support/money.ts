@@ -1,7 +1,7 @@
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { canonicalJson } from '@panelpass/shared';
 import { createHash, randomUUID } from 'node:crypto';
-import { mkdtemp } from 'node:fs/promises';
+import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { inflateSync, deflateSync } from 'node:zlib';
@@ -16,6 +16,7 @@ export const WEBHOOK_SECRET = 'whsec_e2e_money_secret';
 export interface MoneyWorld {
   app: NestExpressApplication;
   stripe: FakeStripe;
+  /** May be replaced by a test that stops and restarts it (same port, same folder). */
   smtp: CaptureSmtp;
   close(): Promise<void>;
 }
@@ -50,16 +51,18 @@ export async function startMoneyWorld(overrides: Record<string, string> = {}): P
   await app.listen(0, '127.0.0.1');
   const port = (app.getHttpServer().address() as { port: number }).port;
   stripe.setWebhook(`http://127.0.0.1:${port}/api/payments/webhook`);
-  return {
+  const world: MoneyWorld = {
     app,
     stripe,
     smtp,
     async close() {
       await stripe.stop();
       await app.close();
-      await smtp.stop();
+      await world.smtp.stop();
+      await rm(dir, { recursive: true, force: true });
     },
   };
+  return world;
 }
 
 export const bearer = { type: 'bearer' as const };

@@ -19,3 +19,13 @@ export class InvoiceQueryDto {
   @Min(0)
   offset?: number = 0;
 }
+
+/** `invoice.issue` (owner): the job's invoice, numbered in turn; a job has one. */
+export class IssueInvoiceDto {
+  /** The invoice's id, made by the client. */
+  @IsUUID()
+  id: string;
+
+  @IsUUID()
+  jobId: string;
+}
