@@ -746,6 +746,108 @@ describe('handover and money', () => {
     void customerId;
   });
 
+  it('puts what was recorded into the job report, in the business’s units', async () => {
+    const shop = await signUpOwner(w.app, 'report-mil');
+    await http(w.app)
+      .patch('/api/business')
+      .auth(shop.accessToken, bearer)
+      .send({
+        timezone: 'America/Chicago',
+        settings: { units: { thickness: 'mil', temperature: 'F' } },
+      })
+      .expect(200);
+    const { jobId } = await makeJob(w.app, shop, { bodyStyle: 'sedan' });
+    await moveTo(w.app, shop, jobId, 'finish');
+    const auth = (r: ReturnType<ReturnType<typeof http>['post']>) =>
+      r.auth(shop.accessToken, bearer);
+    await http(w.app)
+      .patch(`/api/jobs/${jobId}`)
+      .auth(shop.accessToken, bearer)
+      .send({ conditionNotes: 'Swirls all round; a dent in the rear door, not ours.' })
+      .expect(200);
+    const ws = (
+      await http(w.app).get(`/api/jobs/${jobId}/workspace`).auth(shop.accessToken, bearer)
+    ).body as { panels: { id: string; label: string; panelKey: string }[] };
+    const hood = ws.panels.find((p) => p.panelKey === 'hood')!;
+    await auth(http(w.app).post(`/api/jobs/${jobId}/pins`))
+      .send({
+        id: randomUUID(),
+        x: 0.5,
+        y: 0.3,
+        kind: 'dent',
+        severity: 2,
+        panelKey: 'hood',
+        note: 'Old dent',
+      })
+      .expect(201);
+    for (const [phase, readings] of [
+      ['before', [127, 127, 127]],
+      ['after', [114.3, 114.3, 114.3]],
+    ] as const) {
+      await auth(http(w.app).post(`/api/jobs/${jobId}/readings`))
+        .send({
+          id: randomUUID(),
+          panelId: hood.id,
+          phase,
+          readings,
+          unit: 'um',
+          gaugeType: 'magnetic-eddy',
+        })
+        .expect(201);
+    }
+    await auth(http(w.app).post(`/api/jobs/${jobId}/passes`))
+      .send({
+        id: randomUUID(),
+        panelId: hood.id,
+        step: 'heavy-compound',
+        machine: 'dual-action',
+        pad: 'microfibre',
+        speedSetting: '5',
+        passes: 3,
+        result: 'done',
+      })
+      .expect(201);
+    const chip = randomUUID();
+    await auth(http(w.app).post(`/api/jobs/${jobId}/chips`))
+      .send({ id: chip, panelId: hood.id, sizeMm: 1.5, layersPlanned: 3, note: 'Stone chip' })
+      .expect(201);
+    await auth(http(w.app).post(`/api/chips/${chip}/layers`))
+      .send({ id: randomUUID() })
+      .expect(201);
+    await auth(http(w.app).post('/api/timers'))
+      .send({
+        id: randomUUID(),
+        jobId,
+        kind: 'keep-dry',
+        label: 'Glass coat',
+        durationMs: 12 * 3_600_000,
+      })
+      .expect(201);
+    const res = await http(w.app)
+      .get(`/api/jobs/${jobId}/report.pdf`)
+      .auth(shop.accessToken, bearer)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      })
+      .expect(200);
+    const text = pdfText(res.body as Buffer);
+    expect(text).toContain('Swirls all round; a dent in the rear door, not ours.');
+    expect(text).toContain('Old dent');
+    // 127 µm is 5.00 mil; 114.3 µm is 4.50 mil; 12.7 µm (0.50 mil) taken off.
+    expect(text).toContain('127 µm (5.00 mil)');
+    expect(text).toContain('114 µm (4.50 mil)');
+    expect(text).toContain('13 µm (0.50 mil)');
+    expect(text).toContain('heavy-compound');
+    expect(text).toContain('dual-action, microfibre');
+    expect(text).toContain('1 of 3');
+    expect(text).toContain('Glass coat');
+    expect(text).toMatch(/Keep the car dry and unwashed until .*(CST|CDT|AM|PM)/s);
+    expect(text).toContain('Touched-up chips keep hardening');
+  });
+
   it('delivers each queued message once, even with several senders at once', async () => {
     const outbox = w.app.get(MailOutbox);
     const shop = await signUpOwner(w.app, 'outbox-once');

@@ -28,14 +28,18 @@ export interface PdfFile {
   content: Buffer;
 }
 
-/** "Mar 3, 2026, 2:05 PM" in the business's time zone. */
+/** "Mar 3, 2026, 2:05 PM CST" in the business's time zone. */
 export function when(d: Date | string | null | undefined, timeZone: string): string {
   if (!d) return '-';
   const date = typeof d === 'string' ? new Date(d) : d;
   try {
     return new Intl.DateTimeFormat('en-US', {
-      dateStyle: 'medium',
-      timeStyle: 'short',
+      year: 'numeric',
+      month: 'short',
+      day: 'numeric',
+      hour: 'numeric',
+      minute: '2-digit',
+      timeZoneName: 'short',
       timeZone,
     }).format(date);
   } catch {
