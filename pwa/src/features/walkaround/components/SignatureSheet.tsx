@@ -1,6 +1,7 @@
 import { IonButton, IonContent, IonFooter, IonHeader, IonModal, IonToolbar } from '@ionic/react';
-import { useEffect, useId, useRef, useState } from 'react';
+import { useEffect, useId, useRef, useState, type ReactNode } from 'react';
 import type SignaturePad from 'signature_pad';
+import type { CanonicalValue } from '@panelpass/shared';
 import { Notice } from '../../../components/Notice';
 import { useChanges } from '../../../sync/useChanges';
 import type { ConditionRecord } from '../model/conditionRecord';
@@ -15,21 +16,43 @@ function pngBytes(dataUrl: string): Uint8Array {
   return bytes;
 }
 
+/** What a signature sheet says: the owner's condition signature unless told otherwise. */
+export interface SignatureWords<R> {
+  kind: 'condition' | 'acceptance';
+  title: string;
+  intro: string;
+  signLabel: string;
+  /** Draws the record being signed, from the record alone. */
+  view: (record: R) => ReactNode;
+}
+
+const CONDITION_WORDS: SignatureWords<ConditionRecord> = {
+  kind: 'condition',
+  title: "Owner's signature",
+  intro:
+    'Please read the condition of your car as we found it, before any work. Signing says you agree this is how it was.',
+  signLabel: 'Sign the condition record',
+  view: (record) => <RecordView record={record} />,
+};
+
 /**
- * The owner reads the condition record, types their name and signs on the glass. The pad
+ * The owner reads the record, types their name and signs on the glass. The pad
  * (signature_pad) is loaded only when this sheet opens. The signature is kept with the hash
- * of exactly this record (signature.capture) and is never changed afterwards.
+ * of exactly this record (signature.capture) and is never changed afterwards. The condition
+ * record by default; the handover passes its own words for the acceptance signature.
  */
-export function SignatureSheet({
+export function SignatureSheet<R extends { [key: string]: CanonicalValue } = ConditionRecord>({
   isOpen,
   jobId,
   record,
   onClose,
+  words = CONDITION_WORDS as unknown as SignatureWords<R>,
 }: {
   isOpen: boolean;
   jobId: string;
-  record: ConditionRecord;
+  record: R;
   onClose: () => void;
+  words?: SignatureWords<R>;
 }) {
   const ids = useId();
   const recorder = useChanges();
@@ -41,7 +64,7 @@ export function SignatureSheet({
   const [busy, setBusy] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
   // The record as it was when the sheet opened: what the owner reads is what they sign.
-  const [shown, setShown] = useState<ConditionRecord>(record);
+  const [shown, setShown] = useState<R>(record);
 
   function opened() {
     setShown(record);
@@ -98,7 +121,7 @@ export function SignatureSheet({
       const stored = await recorder.captureSignature({
         id: crypto.randomUUID(),
         jobId,
-        kind: 'condition',
+        kind: words.kind,
         signerName: name.trim(),
         record: shown,
         image: pngBytes(p.toDataURL('image/png')),
@@ -126,13 +149,13 @@ export function SignatureSheet({
         setReady(false);
         onClose();
       }}
-      aria-label={"Owner's signature"}
+      aria-label={words.title}
     >
       <IonHeader>
         <IonToolbar>
           <div className="pp-header">
             <h2 id={`${ids}-title`} className="pp-header__title">
-              Owner&apos;s signature
+              {words.title}
             </h2>
             <IonButton className="pp-signout" fill="clear" onClick={onClose}>
               Cancel
@@ -142,11 +165,8 @@ export function SignatureSheet({
       </IonHeader>
       <IonContent>
         <div className="pp-page pp-wk-sheet">
-          <p className="pp-section-hint">
-            Please read the condition of your car as we found it, before any work. Signing says you
-            agree this is how it was.
-          </p>
-          <RecordView record={shown} />
+          <p className="pp-section-hint">{words.intro}</p>
+          {words.view(shown)}
           <div className="pp-field">
             <label className="pp-field__label" htmlFor={`${ids}-name`}>
               Your name
@@ -201,7 +221,7 @@ export function SignatureSheet({
               disabled={busy || missing !== null}
               onClick={() => void sign()}
             >
-              Sign the condition record
+              {words.signLabel}
             </button>
           </div>
         </IonToolbar>

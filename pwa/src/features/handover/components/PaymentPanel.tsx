@@ -1,0 +1,224 @@
+import { useMutation, useQuery } from '@tanstack/react-query';
+import { currencyDigits, formatMinor } from '@panelpass/shared';
+import { useId, useState } from 'react';
+import { isApiError, isNetworkError } from '../../../api/errors';
+import { apiClient } from '../../../app/services';
+import { Notice } from '../../../components/Notice';
+import { useSync } from '../../../sync/context';
+import { useChanges } from '../../../sync/useChanges';
+import { useSession } from '../../auth/hooks/useSession';
+import { businessQuery } from '../../settings/api/businessApi';
+import type { HandoverData } from '../hooks/useHandover';
+import { amountDue, amountText, parseAmount } from '../model/handoverSummary';
+
+interface PaymentRequestAnswer {
+  checkoutUrl: string | null;
+  qrPng: string | null;
+  expiresAt: string | null;
+}
+
+/** The business's currency: from a payment on this job, else the owner's profile. */
+function useCurrency(data: HandoverData): string {
+  const user = useSession()?.user ?? null;
+  const businessId = user?.businessId ?? '';
+  const { data: business } = useQuery({
+    ...businessQuery(apiClient, businessId),
+    enabled: businessId !== '' && user?.role === 'owner',
+  });
+  const fromPayment = data.payments.find((p) => p.currency)?.currency;
+  const fromBusiness =
+    business && typeof business === 'object' && 'currency' in business ? business.currency : null;
+  return fromPayment || (typeof fromBusiness === 'string' && fromBusiness) || 'USD';
+}
+
+function problemWords(error: unknown): string {
+  if (isNetworkError(error)) return 'No signal reached the server. Try again when there is one.';
+  if (isApiError(error)) return error.message;
+  return 'The payment link could not be made. Try again.';
+}
+
+/**
+ * The amount due and the ways to pay at handover: cash or cheque recorded on the phone (sent
+ * with the next sync), or a card payment link for the customer's own phone (needs a signal).
+ */
+export function PaymentPanel({ data }: { data: HandoverData }) {
+  const ids = useId();
+  const recorder = useChanges();
+  const online = useSync()?.status.online ?? navigator.onLine;
+  const currency = useCurrency(data);
+  const digits = currencyDigits(currency);
+  const due = amountDue(data.job.priceMinor, data.payments, currency);
+  const [amount, setAmount] = useState<string | null>(null);
+  const [method, setMethod] = useState<'cash' | 'cheque'>('cash');
+  const [saved, setSaved] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+  // One id pair per payment request, kept so a retry asks for the same payment (idempotent).
+  const [ask, setAsk] = useState(() => ({ id: crypto.randomUUID(), opId: crypto.randomUUID() }));
+
+  const card = useMutation({
+    mutationFn: () =>
+      apiClient.request<PaymentRequestAnswer>(`/api/jobs/${data.job.id}/payment-requests`, {
+        method: 'POST',
+        body: { id: ask.id, opId: ask.opId, kind: 'balance' },
+      }),
+  });
+
+  const typed = amount ?? (due ? amountText(due.dueMinor, digits) : '');
+  const amountMinor = parseAmount(typed, digits);
+  const amountProblem =
+    amountMinor === null
+      ? 'Type the amount taken (a number).'
+      : amountMinor <= 0
+        ? 'The amount must be above zero.'
+        : null;
+  const pending = data.payments.filter((p) => p.status === 'pending' && p.method === 'card');
+
+  async function record() {
+    if (amountMinor === null || amountProblem) return;
+    setBusy(true);
+    setSaved(null);
+    try {
+      const stored = await recorder.changes.recordCash({
+        id: crypto.randomUUID(),
+        opId: crypto.randomUUID(),
+        jobId: data.job.id,
+        kind: 'balance',
+        method,
+        amountMinor,
+      });
+      if (stored) {
+        setSaved(
+          `${formatMinor(amountMinor, currency)} in ${method} recorded. It is sent with the next sync; the job closes when it is paid in full.`,
+        );
+        setAmount(null);
+      }
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  if (!due) {
+    return (
+      <p className="pp-section-hint">The price of this job is with the owner; they take payment.</p>
+    );
+  }
+
+  return (
+    <div className="pp-hand-pay">
+      <p className={`pp-hand-due${due.settled ? ' pp-hand-due--settled' : ''}`} role="status">
+        {due.words}
+      </p>
+      {pending.length > 0 ? (
+        <p className="pp-section-hint">
+          A card payment is waiting for the customer; the amount due changes when it goes through.
+        </p>
+      ) : null}
+      {saved ? <Notice tone="done">{saved}</Notice> : null}
+      {due.settled || data.readOnly ? null : (
+        <>
+          <h3 className="pp-hand-record__h">Cash or cheque</h3>
+          <div className="pp-hand-methods" role="group" aria-label="How they paid">
+            {(['cash', 'cheque'] as const).map((m) => (
+              <button
+                key={m}
+                type="button"
+                className="pp-jump"
+                aria-pressed={method === m}
+                onClick={() => setMethod(m)}
+              >
+                {m === 'cash' ? 'Cash' : 'Cheque'}
+              </button>
+            ))}
+          </div>
+          <div className={`pp-field${amountProblem ? ' pp-field--problem' : ''}`}>
+            <label className="pp-field__label" htmlFor={`${ids}-amount`}>
+              Amount taken ({currency})
+            </label>
+            <div className="pp-field__control">
+              <input
+                id={`${ids}-amount`}
+                className="pp-field__input"
+                inputMode="decimal"
+                autoComplete="off"
+                value={typed}
+                aria-describedby={amountProblem ? `${ids}-amount-problem` : undefined}
+                onChange={(e) => setAmount(e.target.value)}
+              />
+            </div>
+            {amountProblem ? (
+              <p id={`${ids}-amount-problem`} className="pp-field__problem">
+                {amountProblem}
+              </p>
+            ) : null}
+          </div>
+          <button
+            type="button"
+            className="pp-button"
+            disabled={busy || amountProblem !== null}
+            onClick={() => void record()}
+          >
+            {method === 'cash' ? 'Record cash' : 'Record cheque'}
+          </button>
+
+          <h3 className="pp-hand-record__h">Card on the customer&apos;s phone</h3>
+          {card.data?.checkoutUrl ? (
+            <div className="pp-hand-qr">
+              {card.data.qrPng ? (
+                <img
+                  className="pp-hand-qr__image"
+                  src={card.data.qrPng}
+                  alt="QR code of the payment link"
+                  width={220}
+                  height={220}
+                />
+              ) : null}
+              <p className="pp-section-hint">
+                The customer scans this with their phone&apos;s camera and pays there. Or send them
+                the link:
+              </p>
+              <a
+                className="pp-hand-qr__link"
+                href={card.data.checkoutUrl}
+                target="_blank"
+                rel="noreferrer"
+              >
+                {card.data.checkoutUrl}
+              </a>
+              <button
+                type="button"
+                className="pp-small-button"
+                onClick={() => {
+                  card.reset();
+                  setAsk({ id: crypto.randomUUID(), opId: crypto.randomUUID() });
+                }}
+              >
+                Make a new link
+              </button>
+            </div>
+          ) : online ? (
+            <>
+              {card.error ? <Notice tone="stop">{problemWords(card.error)}</Notice> : null}
+              <button
+                type="button"
+                className="pp-button pp-button--quiet-go"
+                disabled={card.isPending}
+                onClick={() => card.mutate()}
+              >
+                {card.isPending
+                  ? 'Making the payment link…'
+                  : card.error
+                    ? 'Try again'
+                    : 'Show a QR code to pay by card'}
+              </button>
+            </>
+          ) : (
+            <Notice tone="wait">
+              A card payment needs a signal to make the link. Take cash or a cheque, or try again
+              when the phone is back online.
+            </Notice>
+          )}
+        </>
+      )}
+    </div>
+  );
+}
