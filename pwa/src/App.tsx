@@ -9,6 +9,7 @@ const SignInPage = lazyPage(() => import('./pages/SignInPage'));
 const StartBusinessPage = lazyPage(() => import('./pages/StartBusinessPage'));
 const InviteAcceptPage = lazyPage(() => import('./pages/InviteAcceptPage'));
 const CustomerHomePage = lazyPage(() => import('./pages/CustomerHomePage'));
+const CustomerLinkPage = lazyPage(() => import('./features/customer/CustomerLinkPage'));
 const MainTabs = lazyPage(() => import('./app/MainTabs'));
 
 /**
@@ -25,6 +26,7 @@ export function App() {
           <Route path="/start" element={<StartBusinessPage />} />
           <Route path="/invite/:token" element={<InviteAcceptPage />} />
           <Route path="/customer" element={<CustomerHomePage />} />
+          <Route path="/c/:token" element={<CustomerLinkPage />} />
           <Route path="/*" element={<MainTabs />} />
         </IonRouterOutlet>
       </IonReactRouter>

@@ -1,9 +1,10 @@
 import { IonContent, IonHeader, IonPage, IonToolbar } from '@ionic/react';
-import { EmptyState } from '../components/EmptyState';
 import { useSession } from '../features/auth/hooks/useSession';
+import { CustomerJobs } from '../features/customer/components/CustomerJobs';
+import '../features/customer/customer.css';
 import { SignOutButton } from '../features/shell/components/SignOutButton';
 
-/** A customer's own page: a placeholder until customers can see their visits. */
+/** A customer's own page: their visits with what is due, paying by card and the documents. */
 export default function CustomerHomePage() {
   const session = useSession();
   const business = session?.user.businessName || 'Your detailer';
@@ -18,12 +19,13 @@ export default function CustomerHomePage() {
       </IonHeader>
       <IonContent>
         <main className="pp-page">
-          <EmptyState title={`Hello${session?.user.name ? `, ${session.user.name}` : ''}`}>
-            <p>
-              {business} will share your visits, photos and receipts here. There is nothing to see
-              yet.
-            </p>
-          </EmptyState>
+          <h2 className="pp-cust-hello">
+            Hello{session?.user.name ? `, ${session.user.name}` : ''}
+          </h2>
+          <p className="pp-cust-hint">
+            Your visits with {business}: what is left to pay, the job report and the invoice.
+          </p>
+          {session ? <CustomerJobs userId={session.user.id} /> : null}
           <div className="pp-actions">
             <SignOutButton />
           </div>

@@ -60,6 +60,14 @@ describe('where a screen sends you', () => {
     expect(redirectFor('/customer', 'customer')).toBeNull();
   });
 
+  it("opens a customer's sign-in link for everyone", () => {
+    expect(redirectFor('/c/tok3n', null)).toBeNull();
+    expect(redirectFor('/c/tok3n', 'customer')).toBeNull();
+    expect(redirectFor('/c/tok3n', 'tech')).toBeNull();
+    expect(redirectFor('/c/', null)).toBe('/sign-in');
+    expect(redirectFor('/c/a/b', 'customer')).toBe('/customer');
+  });
+
   it('opens an invite link for everyone', () => {
     expect(redirectFor('/invite/abc123', null)).toBeNull();
     expect(redirectFor('/invite/abc123', 'owner')).toBeNull();

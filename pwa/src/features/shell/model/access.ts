@@ -44,12 +44,17 @@ function isInvite(pathname: string): boolean {
   return /^\/invite\/[^/]+\/?$/.test(pathname);
 }
 
+/** A customer's e-mailed sign-in link opens for anyone, signed in or not (it signs them in). */
+function isCustomerLink(pathname: string): boolean {
+  return /^\/c\/[^/]+\/?$/.test(pathname);
+}
+
 /**
  * Where to send someone who opens `pathname`, or null to let them stay. The one place that
  * knows which screens need a session and which role may see which tab.
  */
 export function redirectFor(pathname: string, role: Role | null): string | null {
-  if (isInvite(pathname)) return null;
+  if (isInvite(pathname) || isCustomerLink(pathname)) return null;
   const signedOutScreen = within(pathname, signInPath) || within(pathname, startBusinessPath);
 
   if (role === null) return signedOutScreen ? null : signInPath;
