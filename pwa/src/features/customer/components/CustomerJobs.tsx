@@ -1,5 +1,6 @@
-import { useMutation, useQuery } from '@tanstack/react-query';
+import { QueryClientProvider, useMutation, useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
+import { queryClient } from '../../../app/queryClient';
 import { apiClient, sessionStore } from '../../../app/services';
 import { Notice } from '../../../components/Notice';
 import { isApiError, isNetworkError } from '../../../api/errors';
@@ -41,7 +42,7 @@ function DocumentLink({ doc }: { doc: JobDocument }) {
         disabled={state === 'busy'}
         onClick={() => void open()}
       >
-        {state === 'busy' ? `Opening ${doc.title}…` : `Open ${doc.title} (PDF)`}
+        {state === 'busy' ? `Opening ${doc.title}…` : `${doc.title} (PDF)`}
       </button>
       {state === 'failed' ? (
         <Notice tone="stop">{doc.title} did not open. Try again when there is a signal.</Notice>
@@ -98,8 +99,19 @@ function JobCard({ job }: { job: CustomerJob }) {
   );
 }
 
-/** The customer's own jobs, newest first: the amount due, paying by card, the documents. */
+/**
+ * The customer's own jobs, newest first: the amount due, paying by card, the documents. The
+ * customer's page is outside the tab shell, so it brings the app's query client itself.
+ */
 export function CustomerJobs({ userId }: { userId: string }) {
+  return (
+    <QueryClientProvider client={queryClient}>
+      <JobList userId={userId} />
+    </QueryClientProvider>
+  );
+}
+
+function JobList({ userId }: { userId: string }) {
   const jobs = useQuery(customerJobsQuery(apiClient, userId));
   if (jobs.isPending) return <div className="pp-loading" aria-busy="true" />;
   if (jobs.error)
