@@ -87,7 +87,12 @@ export function AcceptanceSignature({ data }: { data: HandoverData }) {
           Show the customer the car and this summary, then let them sign on this phone.
         </p>
       )}
-      {data.readOnly ? null : (
+      {data.readOnly ? null : data.job.stage !== 'handover' ? (
+        // Signing locks the recorded work on the server: only once the work is done.
+        <p className="pp-section-hint">
+          The customer signs once the job has moved to Handover and the work is finished.
+        </p>
+      ) : (
         <button
           type="button"
           className={latest ? 'pp-button pp-button--quiet-go' : 'pp-button'}
