@@ -118,7 +118,7 @@ describe('accessibility of the workspace screens', () => {
     await masking.getByRole('button', { name: 'Add masking' }).click();
     await masking.waitFor({ state: 'hidden' });
     await screen()
-      .getByText(/^Flush by \d\d:\d\d$/)
+      .getByText(/^Flush by \d{1,2}:\d\d$/)
       .waitFor();
     await check('Prep');
 
