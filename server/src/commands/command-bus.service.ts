@@ -1,24 +1,14 @@
 import { HttpStatus, Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { plainToInstance } from 'class-transformer';
-import { validate, ValidationError } from 'class-validator';
+import { validate } from 'class-validator';
 import { DataSource, EntityManager } from 'typeorm';
 import { AuditEntry } from '../audit/audit-entry.entity';
 import type { JsonObject } from '../database/synced.entity';
 import type { Actor } from '../auth/current-user.decorator';
 import { AppException } from '../common/app.exception';
+import { validationFailed } from '../common/validation.pipe';
 import type { CommandDef } from './command.types';
-
-function flatten(
-  errors: ValidationError[],
-  prefix = '',
-): { field: string; rules: Record<string, string> }[] {
-  return errors.flatMap((e) => {
-    const field = prefix ? `${prefix}.${e.property}` : e.property;
-    const own = e.constraints ? [{ field, rules: e.constraints }] : [];
-    return [...own, ...flatten(e.children ?? [], field)];
-  });
-}
 
 const isObject = (v: unknown): v is Record<string, unknown> =>
   typeof v === 'object' && v !== null && !Array.isArray(v);
@@ -87,15 +77,7 @@ export class CommandBus {
     }
     const args = plainToInstance(def.args, rawArgs);
     const errors = await validate(args, { whitelist: true, forbidNonWhitelisted: true });
-    if (errors.length) {
-      const details = flatten(errors);
-      throw new AppException(
-        HttpStatus.BAD_REQUEST,
-        'validation-failed',
-        details.flatMap((d) => Object.values(d.rules)).join('; '),
-        details,
-      );
-    }
+    if (errors.length) throw validationFailed(errors);
     await lockBusinessWrites(m, actor.businessId);
     const result = await def.run({ actor, m, via }, args);
     const subjectId = typeof rawArgs.id === 'string' ? rawArgs.id : null;
