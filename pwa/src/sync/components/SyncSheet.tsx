@@ -34,7 +34,7 @@ export function syncSummary(s: SyncStatusView): { tone: NoticeTone; words: strin
 export function lastSavedWords(lastSyncAt: number | null, now = Date.now()): string {
   if (lastSyncAt === null) return 'Not saved to the server from this phone yet.';
   const at = new Date(lastSyncAt);
-  const time = at.toLocaleTimeString(undefined, { hour: 'numeric', minute: '2-digit' });
+  const time = at.toLocaleTimeString(undefined, { timeStyle: 'short' });
   const sameDay = at.toDateString() === new Date(now).toDateString();
   if (sameDay) return `Last saved to the server at ${time}.`;
   const day = at.toLocaleDateString(undefined, { day: 'numeric', month: 'short' });
@@ -43,9 +43,7 @@ export function lastSavedWords(lastSyncAt: number | null, now = Date.now()): str
 
 function madeAt(iso: string): string {
   const at = new Date(iso);
-  return Number.isNaN(at.getTime())
-    ? ''
-    : at.toLocaleTimeString(undefined, { hour: 'numeric', minute: '2-digit' });
+  return Number.isNaN(at.getTime()) ? '' : at.toLocaleTimeString(undefined, { timeStyle: 'short' });
 }
 
 /**

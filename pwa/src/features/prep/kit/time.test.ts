@@ -9,6 +9,12 @@ describe('times in words', () => {
     expect(clockTime(T, 'en-GB')).toBe('14:32');
   });
 
+  it('writes a time after midnight with two hour digits where the locale does ("00:13")', () => {
+    const afterMidnight = new Date(2026, 4, 15, 0, 13).getTime();
+    expect(clockTime(afterMidnight, 'en-GB')).toBe('00:13');
+    expect(clockTime(afterMidnight, 'en-US')).toMatch(/^12:13\s?AM$/);
+  });
+
   it('adds the day only when it is not today, and says "tomorrow"', () => {
     expect(dayAndTime(T, T - 60_000, 'en-GB')).toBe('14:32');
     expect(dayAndTime(T + 86_400_000, T, 'en-GB')).toBe('14:32 tomorrow');

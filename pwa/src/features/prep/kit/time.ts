@@ -11,7 +11,7 @@ const DAY = 24 * HOUR;
 
 /** "14:32" (or "2:32 PM" where the phone's language says so). */
 export function clockTime(ms: number, locale?: string): string {
-  return new Date(ms).toLocaleTimeString(locale, { hour: 'numeric', minute: '2-digit' });
+  return new Date(ms).toLocaleTimeString(locale, { timeStyle: 'short' });
 }
 
 /**

@@ -7,7 +7,7 @@ import { KIND_WORDS, kindOf, remainingText } from '../model/timerWords';
 import { KIND_ICONS, stateLook } from './kindLook';
 
 function clock(iso: string): string {
-  return new Date(iso).toLocaleTimeString(undefined, { hour: 'numeric', minute: '2-digit' });
+  return new Date(iso).toLocaleTimeString(undefined, { timeStyle: 'short' });
 }
 
 /**

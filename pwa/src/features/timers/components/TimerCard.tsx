@@ -24,7 +24,7 @@ export interface TimerCardProps {
 }
 
 function clock(iso: string): string {
-  return new Date(iso).toLocaleTimeString(undefined, { hour: 'numeric', minute: '2-digit' });
+  return new Date(iso).toLocaleTimeString(undefined, { timeStyle: 'short' });
 }
 
 /**

@@ -69,7 +69,7 @@ const panelWords = (panel: JobPanelRow | undefined) =>
   panel ? ` off the ${panel.label.toLowerCase()}` : '';
 
 function clock(ms: number): string {
-  return new Date(ms).toLocaleTimeString(undefined, { hour: 'numeric', minute: '2-digit' });
+  return new Date(ms).toLocaleTimeString(undefined, { timeStyle: 'short' });
 }
 
 /**
