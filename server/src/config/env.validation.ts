@@ -3,6 +3,7 @@ import {
   IsBoolean,
   IsIn,
   IsInt,
+  IsNumber,
   IsOptional,
   IsString,
   Max,
@@ -179,6 +180,27 @@ export class EnvironmentVariables {
   @Min(1)
   @Max(24 * 30)
   CUSTOMER_LINK_HOURS = 72;
+
+  // Follow-up e-mails (maintenance and appointment reminders) on a pg-boss queue in the same
+  // database (schema `pgboss`, created and migrated by pg-boss itself).
+
+  /** Set to off to run no queue worker in this server (follow-ups stay recorded, unsent). */
+  @Transform(toBool)
+  @IsBoolean()
+  FOLLOW_UPS = true;
+
+  /** How often the worker asks the queue for follow-ups that are due (at least 0.5). */
+  @Transform(toNumber)
+  @IsNumber({ allowNaN: false, allowInfinity: false })
+  @Min(0.5)
+  @Max(3600)
+  FOLLOW_UPS_POLL_SECONDS = 10;
+
+  /** How often the sweeper queues unqueued follow-ups and sends any long overdue. */
+  @Transform(toNumber)
+  @IsInt()
+  @Min(1)
+  FOLLOW_UPS_SWEEP_SECONDS = 300;
 }
 
 export function validateEnv(config: Record<string, unknown>): EnvironmentVariables {
