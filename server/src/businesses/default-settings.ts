@@ -81,6 +81,7 @@ export function defaultSettings(): BusinessSettingsDto {
     waits: { keepDryHours: 24, maintenanceReminderMonths: 6 },
     labourCostPerHourMinor: 3_500,
     drive: { roadFactor: 1.3, averageSpeedKmh: 45 },
+    profile: { email: '', phone: '', address: '', base: null },
   };
 }
 

@@ -7,7 +7,10 @@ import {
   IsArray,
   IsBoolean,
   IsIn,
+  IsEmail,
   IsInt,
+  IsLatitude,
+  IsLongitude,
   IsNumber,
   IsOptional,
   IsString,
@@ -227,6 +230,45 @@ export class DriveSettingDto {
   averageSpeedKmh: number;
 }
 
+/** A map position, in decimal degrees. */
+export class PlaceSettingDto {
+  @IsNumber({ allowNaN: false, allowInfinity: false }, { message: 'lat must be a number' })
+  @IsLatitude({ message: 'lat must be a latitude from -90 to 90' })
+  lat: number;
+
+  @IsNumber({ allowNaN: false, allowInfinity: false }, { message: 'lng must be a number' })
+  @IsLongitude({ message: 'lng must be a longitude from -180 to 180' })
+  lng: number;
+}
+
+/** How customers reach the business, and where its day starts (for drive times). */
+export class ProfileSettingDto {
+  /** The business's contact e-mail; empty when none is given. */
+  @IsString()
+  @MaxLength(254)
+  @ValidateIf((o: ProfileSettingDto) => o.email !== '')
+  @IsEmail({}, { message: 'email must be an e-mail address (or left empty)' })
+  email: string;
+
+  @IsString()
+  @MaxLength(40)
+  @Matches(/^[0-9+()./ -]*$/, {
+    message: 'phone may hold only digits, spaces and + ( ) - . /',
+  })
+  phone: string;
+
+  /** The postal address, as customers should read it. */
+  @IsString()
+  @MaxLength(300)
+  address: string;
+
+  /** The base the day's drive starts from; null until the owner sets it. */
+  @ValidateIf((o: ProfileSettingDto) => o.base !== null)
+  @ValidateNested()
+  @Type(() => PlaceSettingDto)
+  base: PlaceSettingDto | null;
+}
+
 const byId = (o: { id?: unknown }) => o?.id;
 
 /** Everything Settings holds; every section present (a new business gets the defaults). */
@@ -302,6 +344,10 @@ export class BusinessSettingsDto {
   @ValidateNested()
   @Type(() => DriveSettingDto)
   drive: DriveSettingDto;
+
+  @ValidateNested()
+  @Type(() => ProfileSettingDto)
+  profile: ProfileSettingDto;
 }
 
 /** What `business.update` may send: any section, each replacing the whole section. */
