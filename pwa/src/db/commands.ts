@@ -10,8 +10,11 @@ import {
   pauseTimer,
   resumeTimer,
   solventApplyRows,
+  productCreateRows,
   timerStartRow,
   toMicrometres,
+  stockAdjustRows,
+  stockAfterUse,
   toOneDecimal,
   type CommandArgs,
   type CommandName,
@@ -152,6 +155,23 @@ const PRODUCT_KINDS = {
 
 function timerState(t: SyncRowTypes['timers']): 'cancelled' | 'acknowledged' | 'paused' | 'live' {
   if (t.cancelledAt !== null) return 'cancelled';
+/**
+ * A use logged in the field takes the product's `amountPerUse` from its stock at once, as
+ * the server does (once per record: the effect runs only when the record is new). So the
+ * stock a phone shows is the server's count less the uses still waiting to be sent.
+ */
+async function takeUse(
+  store: RowStore,
+  productId: string | null | undefined,
+  ctx: ApplyContext,
+): Promise<void> {
+  if (!productId) return;
+  const product = await store.get('products', productId);
+  if (!product) return;
+  const left = stockAfterUse(product);
+  if (left !== null) await patch(store, 'products', product, { stockQty: left }, ctx);
+}
+
   if (t.acknowledgedAt !== null) return 'acknowledged';
   return t.pausedAt !== null ? 'paused' : 'live';
 }
@@ -247,6 +267,47 @@ export const COMMANDS: Registry = {
 
   'job.create': {
     async apply(store, a, ctx) {
+  'product.create': {
+    async apply(store, a, ctx) {
+      ownerOnly(ctx, 'change the Shelf');
+      if (await exists(store, 'products', a.id)) return;
+      const { product, opening } = productCreateRows(a, ctx);
+      await store.put('products', product);
+      if (opening) await store.put('stock_movements', opening);
+    },
+  },
+  'product.update': {
+    async apply(store, a, ctx) {
+      ownerOnly(ctx, 'change the Shelf');
+      const row = await mustGet(store, 'products', a.id, 'Product');
+      const fields = fieldsOf(a);
+      await patch(
+        store,
+        'products',
+        row,
+        { ...fields, name: trimmed(a.name) ?? row.name, unit: trimmed(a.unit) ?? row.unit },
+        ctx,
+      );
+    },
+  },
+  'stock.adjust': {
+    async apply(store, a, ctx) {
+      ownerOnly(ctx, 'change stock');
+      const product = await mustGet(store, 'products', a.productId, 'Product');
+      const existing = await store.get('stock_movements', a.id);
+      if (existing) {
+        if (existing.productId !== product.id) {
+          throw new CommandRefusedError('id-taken', 'That id is already in use');
+        }
+        return;
+      }
+      const done = stockAdjustRows(a, product, ctx);
+      if ('code' in done) throw new CommandRefusedError(done.code, done.message);
+      await store.put('stock_movements', done.movement);
+      await patch(store, 'products', product, done.changes, ctx);
+    },
+  },
+
       ownerOnly(ctx, 'book jobs');
       if (await exists(store, 'jobs', a.id)) return;
       const customer = await mustGet(store, 'customers', a.customerId, 'Customer');
@@ -418,6 +479,7 @@ export const COMMANDS: Registry = {
       });
       if (a.result === 'done') await patch(store, 'job_panels', panel, { state: 'done' }, ctx);
       else if (panel.state === 'todo') {
+      await takeUse(store, a.productId, ctx);
         await patch(store, 'job_panels', panel, { state: 'in-progress' }, ctx);
       }
     },
@@ -460,6 +522,7 @@ export const COMMANDS: Registry = {
       });
     },
   },
+      await takeUse(store, productId, ctx);
 
   'solvent.apply': {
     prepare: withTime('appliedAt'),
@@ -477,6 +540,7 @@ export const COMMANDS: Registry = {
       await store.put('timers', timer);
     },
   },
+      await takeUse(store, product?.id, ctx);
   'solvent.flush': {
     prepare: withTime('at'),
     async apply(store, a, ctx) {
@@ -511,6 +575,7 @@ export const COMMANDS: Registry = {
       );
     },
   },
+      await takeUse(store, product?.id, ctx);
   'mask.remove': {
     prepare: withTime('at'),
     async apply(store, a, ctx) {

@@ -28,6 +28,41 @@ export interface VehicleFields {
   plate?: string | null;
 }
 
+/** The kinds of product on the Shelf (the server's `PRODUCT_KINDS`, same order). */
+export const PRODUCT_KINDS = [
+  'compound',
+  'polish',
+  'finishing-polish',
+  'solvent',
+  'tape',
+  'touch-up',
+  'protection',
+  'cleaner',
+  'pad',
+  'tool',
+  'other',
+] as const;
+export type ProductKind = (typeof PRODUCT_KINDS)[number];
+
+/**
+ * A product's fields on the Shelf (the server's `ProductFieldsDto`). `properties` are what
+ * the computations read, by kind (a solvent's dwell, a paint's flash and cure…); `{}` means
+ * "not entered". Stock changes only through `stock.adjust` and the uses logged in the field.
+ */
+export interface ProductFields {
+  name: string;
+  kind: ProductKind;
+  properties?: Record<string, unknown>;
+  unit?: string;
+  amountPerUse?: number;
+  unitCostMinor?: number;
+  lowStockAt?: number;
+  sdsUrl?: string | null;
+}
+
+/** Why stock is added or taken by hand: a delivery, or a count that differed. */
+export type StockAdjustReason = 'restock' | 'adjust';
+
 export interface JobCreateArgs {
   id: string;
   customerId: string;
@@ -88,6 +123,15 @@ export interface CommandArgs {
   'vehicle.create': VehicleFields & { id: string; customerId: string };
   'vehicle.update': Partial<VehicleFields> & { id: string };
   'vehicle.remove': { id: string };
+  'product.create': ProductFields & { id: string; stockQty?: number };
+  'product.update': Partial<ProductFields> & { id: string };
+  'stock.adjust': {
+    id: string;
+    productId: string;
+    qty: number;
+    reason: StockAdjustReason;
+    unitCostMinor?: number;
+  };
   'job.create': JobCreateArgs;
   'job.update': JobUpdateArgs;
   'job.setStage': { id: string; stage: string };

@@ -14,9 +14,11 @@ import type {
   JobPanelRow,
   JobRow,
   MaskingItemRow,
+  ProductRow,
   RowBase,
   SolventApplicationRow,
   TimerRow,
+  StockMovementRow,
 } from './rows';
 
 /** Who records the command and when (epoch ms, on the server's clock as well as known). */
@@ -239,6 +241,112 @@ export function maskAddRow(
 }
 
 /** The longest wait a timer may have (the server refuses longer). */
+/** Stock is counted to 3 decimals (the server's numeric(12,3)); sums are rounded to match. */
+export const toStockQty = (n: number): number => Math.round(n * 1000) / 1000;
+
+/** The id of the movement that records a new product's opening stock (same on the server). */
+export const openingStockId = (productId: string): string => childId(productId, 'opening-stock');
+
+/**
+ * A product put on the Shelf, with its opening stock recorded as a movement (so stock is
+ * always explained), as the server's `product.create` makes them.
+ */
+export function productCreateRows(
+  a: CommandArgs['product.create'],
+  ctx: EffectContext,
+): { product: ProductRow; opening: StockMovementRow | null } {
+  const stockQty = toStockQty(a.stockQty ?? 0);
+  const unitCostMinor = a.unitCostMinor ?? 0;
+  const product: ProductRow = {
+    ...newRowBase(a.id, ctx),
+    name: a.name.trim(),
+    kind: a.kind,
+    properties: a.properties ?? {},
+    unit: a.unit?.trim() || 'mL',
+    stockQty,
+    amountPerUse: a.amountPerUse ?? 0,
+    unitCostMinor,
+    lowStockAt: a.lowStockAt ?? 0,
+    sdsUrl: a.sdsUrl ?? null,
+  };
+  const opening: StockMovementRow | null = stockQty
+    ? {
+        ...newRowBase(openingStockId(a.id), ctx),
+        productId: a.id,
+        qty: stockQty,
+        reason: 'adjust',
+        jobId: null,
+        sourceType: null,
+        sourceId: null,
+        unitCostMinor,
+      }
+    : null;
+  return { product, opening };
+}
+
+/** Why a stock adjustment is refused: the server's code and words for the same rule. */
+export interface StockRefusal {
+  code: 'validation-failed' | 'stock-below-zero';
+  message: string;
+}
+
+/**
+ * A restock or a count correction, by the server's rules: a restock adds, nothing goes below
+ * zero, and a restock's unit cost becomes the product's (the last price paid).
+ */
+export function stockAdjustRows(
+  a: CommandArgs['stock.adjust'],
+  product: Pick<ProductRow, 'stockQty' | 'unit' | 'unitCostMinor'>,
+  ctx: EffectContext,
+):
+  | { movement: StockMovementRow; changes: Pick<ProductRow, 'stockQty' | 'unitCostMinor'> }
+  | StockRefusal {
+  if (!Number.isFinite(a.qty) || a.qty === 0) {
+    return { code: 'validation-failed', message: 'qty must not be zero' };
+  }
+  if (a.reason === 'restock' && a.qty < 0) {
+    return { code: 'validation-failed', message: 'qty of a restock must be above zero' };
+  }
+  if (product.stockQty + a.qty < -1e-9) {
+    return {
+      code: 'stock-below-zero',
+      message: `Only ${product.stockQty} ${product.unit} in stock; this would take it below zero`,
+    };
+  }
+  const unitCostMinor = a.unitCostMinor ?? product.unitCostMinor ?? 0;
+  return {
+    movement: {
+      ...newRowBase(a.id, ctx),
+      productId: a.productId,
+      qty: a.qty,
+      reason: a.reason,
+      jobId: null,
+      sourceType: null,
+      sourceId: null,
+      unitCostMinor,
+    },
+    changes: {
+      stockQty: toStockQty(product.stockQty + a.qty),
+      unitCostMinor:
+        a.reason === 'restock' && a.unitCostMinor !== undefined
+          ? a.unitCostMinor
+          : (product.unitCostMinor ?? 0),
+    },
+  };
+}
+
+/**
+ * What one use logged in the field (a pass, a solvent, a touch-up layer, a piece of tape)
+ * leaves of a product: its `amountPerUse` less, when that is set; null when uses of it are
+ * not counted. The server takes it once per record (a unique key); so does the device.
+ */
+export function stockAfterUse(
+  product: Pick<ProductRow, 'stockQty' | 'amountPerUse'>,
+): number | null {
+  if (!(product.amountPerUse > 0)) return null;
+  return toStockQty(product.stockQty - product.amountPerUse);
+}
+
 export const MAX_TIMER_MS = 30 * 24 * 60 * 60 * 1000;
 
 /** A timer with an absolute end: `endsAt` as given, or `startedAt + durationMs`. */

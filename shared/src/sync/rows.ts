@@ -45,6 +45,19 @@ export interface ProductRow extends RowBase {
   sdsUrl: string | null;
 }
 
+/** A change of stock: a use logged in the field, a restock or a count correction (owner only). */
+export interface StockMovementRow extends RowBase {
+  productId: string;
+  /** Added (+) or taken (−), in the product's unit. */
+  qty: number;
+  /** `use`, `restock` or `adjust`. */
+  reason: string;
+  jobId: string | null;
+  sourceType: string | null;
+  sourceId: string | null;
+  unitCostMinor: number;
+}
+
 export interface JobRow extends RowBase {
   customerId: string;
   vehicleId: string;
@@ -256,5 +269,5 @@ export interface SyncRowTypes {
   signatures: SignatureRow;
   payments: PaymentRow;
   invoices: RowBase;
-  stock_movements: RowBase;
+  stock_movements: StockMovementRow;
 }
