@@ -42,6 +42,16 @@ const TECH_EDITABLE = new Set(['conditionNotes', 'notes', 'expectedVersion', 'id
  */
 export type CloseHook = (ctx: CommandContext, job: Job) => Promise<void>;
 
+/**
+ * Work that follows a change of a job's booking, in the same transaction: after the job is
+ * made, updated or removed (its follow-up reminders follow its window).
+ */
+export type BookingHook = (
+  ctx: CommandContext,
+  job: Job,
+  change: 'created' | 'updated' | 'removed',
+) => Promise<void>;
+
 export interface JobSummary extends Omit<Job, 'priceMinor'> {
   /** Absent for a helper: they see what is due, not the price. */
   priceMinor?: number;
@@ -53,6 +63,7 @@ export interface JobSummary extends Omit<Job, 'priceMinor'> {
 @Injectable()
 export class JobsService implements OnModuleInit {
   private readonly closeHooks: CloseHook[] = [];
+  private readonly bookingHooks: BookingHook[] = [];
 
   constructor(
     @InjectDataSource() private readonly db: DataSource,
@@ -99,8 +110,14 @@ export class JobsService implements OnModuleInit {
     this.closeHooks.push(hook);
   }
 
+  /** Runs `hook` after a job is made, updated or removed (see BookingHook). */
+  onBookingChange(hook: BookingHook): void {
+    this.bookingHooks.push(hook);
+  }
+
   /** A new visit, with its panels from the body-style template and the default checklist. */
-  async create({ actor, m }: CommandContext, a: CreateJobDto): Promise<Job> {
+  async create(ctx: CommandContext, a: CreateJobDto): Promise<Job> {
+    const { actor, m } = ctx;
     const existing = await alreadyCreated(m, Job, actor, a.id);
     if (existing) return existing;
     checkWindow(a.windowStart, a.windowEnd);
@@ -146,13 +163,16 @@ export class JobsService implements OnModuleInit {
         position,
       })),
     );
-    return m.findOneByOrFail(Job, { id: a.id });
+    const job = await m.findOneByOrFail(Job, { id: a.id });
+    for (const hook of this.bookingHooks) await hook(ctx, job, 'created');
+    return job;
   }
 
   async update(
-    { actor, m }: CommandContext,
+    ctx: CommandContext,
     { id, expectedVersion, ...fields }: UpdateJobDto,
   ): Promise<Job> {
+    const { actor, m } = ctx;
     const job = await jobInScope(m, actor, id);
     if (actor.role === 'tech') {
       const refused = Object.keys(fields).filter((k) => !TECH_EDITABLE.has(k));
@@ -178,7 +198,9 @@ export class JobsService implements OnModuleInit {
       await refuseIfSigned(m, job.id);
     }
     if (Object.keys(fields).length) await m.update(Job, { id }, fields);
-    return m.findOneByOrFail(Job, { id });
+    const updated = await m.findOneByOrFail(Job, { id });
+    for (const hook of this.bookingHooks) await hook(ctx, updated, 'updated');
+    return updated;
   }
 
   /** Moves the job along its stages; a move the table does not allow is a 409 naming the allowed ones. */
@@ -214,10 +236,12 @@ export class JobsService implements OnModuleInit {
     return m.findOneByOrFail(Job, { id });
   }
 
-  async remove({ actor, m }: CommandContext, { id, expectedVersion }: RemoveJobDto): Promise<void> {
+  async remove(ctx: CommandContext, { id, expectedVersion }: RemoveJobDto): Promise<void> {
+    const { actor, m } = ctx;
     const job = await jobInScope(m, actor, id);
     checkVersion(job, expectedVersion, 'job');
     await m.softDelete(Job, { id });
+    for (const hook of this.bookingHooks) await hook(ctx, job, 'removed');
   }
 
   async list(actor: Actor, query: JobQueryDto): Promise<Page<JobSummary>> {
