@@ -1,6 +1,8 @@
 import {
   allowedNextStages,
   canMoveStage,
+  cardRequestAmount,
+  cardRequestRow,
   checkGaugeOnSubstrate,
   flushTimerId,
   isJobStage,
@@ -8,13 +10,13 @@ import {
   maskAddRow,
   newRowBase,
   pauseTimer,
+  productCreateRows,
   resumeTimer,
   solventApplyRows,
-  productCreateRows,
-  timerStartRow,
-  toMicrometres,
   stockAdjustRows,
   stockAfterUse,
+  timerStartRow,
+  toMicrometres,
   toOneDecimal,
   type CommandArgs,
   type CommandName,
@@ -153,8 +155,6 @@ const PRODUCT_KINDS = {
   touchUp: ['touch-up'],
 } as const;
 
-function timerState(t: SyncRowTypes['timers']): 'cancelled' | 'acknowledged' | 'paused' | 'live' {
-  if (t.cancelledAt !== null) return 'cancelled';
 /**
  * A use logged in the field takes the product's `amountPerUse` from its stock at once, as
  * the server does (once per record: the effect runs only when the record is new). So the
@@ -172,6 +172,8 @@ async function takeUse(
   if (left !== null) await patch(store, 'products', product, { stockQty: left }, ctx);
 }
 
+function timerState(t: SyncRowTypes['timers']): 'cancelled' | 'acknowledged' | 'paused' | 'live' {
+  if (t.cancelledAt !== null) return 'cancelled';
   if (t.acknowledgedAt !== null) return 'acknowledged';
   return t.pausedAt !== null ? 'paused' : 'live';
 }
@@ -265,8 +267,6 @@ export const COMMANDS: Registry = {
     },
   },
 
-  'job.create': {
-    async apply(store, a, ctx) {
   'product.create': {
     async apply(store, a, ctx) {
       ownerOnly(ctx, 'change the Shelf');
@@ -308,6 +308,8 @@ export const COMMANDS: Registry = {
     },
   },
 
+  'job.create': {
+    async apply(store, a, ctx) {
       ownerOnly(ctx, 'book jobs');
       if (await exists(store, 'jobs', a.id)) return;
       const customer = await mustGet(store, 'customers', a.customerId, 'Customer');
@@ -477,9 +479,9 @@ export const COMMANDS: Registry = {
         loggedAt: a.loggedAt ?? iso(ctx.atMs),
         loggedBy: ctx.userId,
       });
+      await takeUse(store, a.productId, ctx);
       if (a.result === 'done') await patch(store, 'job_panels', panel, { state: 'done' }, ctx);
       else if (panel.state === 'todo') {
-      await takeUse(store, a.productId, ctx);
         await patch(store, 'job_panels', panel, { state: 'in-progress' }, ctx);
       }
     },
@@ -520,9 +522,9 @@ export const COMMANDS: Registry = {
         productId,
         appliedBy: ctx.userId,
       });
+      await takeUse(store, productId, ctx);
     },
   },
-      await takeUse(store, productId, ctx);
 
   'solvent.apply': {
     prepare: withTime('appliedAt'),
@@ -538,9 +540,9 @@ export const COMMANDS: Registry = {
       );
       await store.put('solvent_applications', application);
       await store.put('timers', timer);
+      await takeUse(store, product?.id, ctx);
     },
   },
-      await takeUse(store, product?.id, ctx);
   'solvent.flush': {
     prepare: withTime('at'),
     async apply(store, a, ctx) {
@@ -573,9 +575,9 @@ export const COMMANDS: Registry = {
         'masking_items',
         maskAddRow({ ...a, appliedAt: a.appliedAt ?? iso(ctx.atMs) }, product?.properties, ctx),
       );
+      await takeUse(store, product?.id, ctx);
     },
   },
-      await takeUse(store, product?.id, ctx);
   'mask.remove': {
     prepare: withTime('at'),
     async apply(store, a, ctx) {
@@ -749,6 +751,54 @@ export const COMMANDS: Registry = {
         paidAt: iso(ctx.atMs),
         recordedBy: ctx.userId,
       });
+    },
+  },
+  'payment.request': {
+    // A pending card payment at once, offline too; the server makes the checkout link with
+    // the provider when the request reaches it, and the pull brings the link.
+    async apply(store, a, ctx) {
+      if (await exists(store, 'payments', a.id)) return;
+      if ((await store.where('payments', 'opId', a.opId)).length) return;
+      const job = await mustGet(store, 'jobs', a.jobId, 'Job');
+      const payments = await store.where('payments', 'jobId', a.jobId);
+      let amountMinor = a.amountMinor ?? 0;
+      // A helper's phone has no price or payments: the server works the amount out.
+      if (typeof job.priceMinor === 'number' && ctx.role === 'owner') {
+        const quote = job.quoteId ? await store.get('quotes', job.quoteId) : undefined;
+        const deposit = (quote as { depositMinor?: unknown } | undefined)?.depositMinor;
+        const asked = cardRequestAmount(a, {
+          priceMinor: job.priceMinor,
+          payments: payments.map((p) => ({
+            kind: p.kind === 'deposit' || p.kind === 'refund' ? p.kind : 'balance',
+            status: p.status,
+            amountMinor: p.amountMinor,
+          })),
+          quoteDepositMinor: typeof deposit === 'number' ? deposit : null,
+        });
+        if ('code' in asked) throw new CommandRefusedError(asked.code, asked.message);
+        amountMinor = asked.amountMinor;
+      }
+      // A new link replaces the job's older open ones of the same kind (as on the server).
+      for (const older of payments) {
+        if (older.method !== 'card' || older.kind !== a.kind) continue;
+        if (older.status !== 'pending' && older.status !== 'failed') continue;
+        await patch(
+          store,
+          'payments',
+          older,
+          { status: 'expired', failureReason: 'Replaced by a newer payment link' },
+          ctx,
+        );
+      }
+      await store.put(
+        'payments',
+        cardRequestRow(
+          a,
+          amountMinor,
+          { quoteId: job.quoteId, recordedBy: ctx.role === 'customer' ? null : ctx.userId },
+          ctx,
+        ),
+      );
     },
   },
 };
