@@ -39,6 +39,7 @@ import { MailModule } from './mail/mail.module';
 import { DocumentsModule } from './documents/documents.module';
 import { HandoverModule } from './handover/handover.module';
 import { CustomerLinksModule } from './customer-links/customer-links.module';
+import { CustomerAreaModule } from './customer-area/customer-area.module';
 
 @Module({
   imports: [
@@ -76,6 +77,7 @@ import { CustomerLinksModule } from './customer-links/customer-links.module';
     DocumentsModule,
     HandoverModule,
     CustomerLinksModule,
+    CustomerAreaModule,
     AuditModule,
     SyncModule,
     HealthModule,

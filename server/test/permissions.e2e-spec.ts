@@ -325,6 +325,10 @@ const MATRIX: Record<string, Row> = {
     }),
     expect: e(201, 403, 403, 403, 403, 404),
   },
+  'GET /api/customer-area': {
+    req: () => ({ method: 'get', path: '/api/customer-area' }),
+    expect: e(403, 403, 403, 200, 200, 403),
+  },
   'GET /api/dev/mail': {
     req: () => ({ method: 'get', path: '/api/dev/mail' }),
     expect: e(200, 403, 403, 403, 403, 200),
@@ -434,6 +438,10 @@ const MATRIX: Record<string, Row> = {
       body: { stage: 'walkaround' },
     }),
     expect: e(200, 200, 404, 403, 403, 404),
+  },
+  'GET /api/jobs/{id}/condition-record': {
+    req: (w) => ({ method: 'get', path: `/api/jobs/${w.jobA.jobId}/condition-record` }),
+    expect: e(200, 200, 404, 200, 404, 404),
   },
   'GET /api/jobs/{id}/documents': {
     req: (w) => ({ method: 'get', path: `/api/jobs/${w.jobA.jobId}/documents` }),
@@ -673,6 +681,15 @@ const MATRIX: Record<string, Row> = {
       body: {},
     }),
     expect: e(200, 403, 403, 200, 404, 404),
+  },
+  'PUT /api/quotes/{id}/signature-image': {
+    req: (w) => ({
+      method: 'put',
+      path: `/api/quotes/${w.quoteA}/signature-image`,
+      body: png(++seed),
+      contentType: 'image/png',
+    }),
+    expect: e(201, 403, 403, 201, 404, 404),
   },
   'POST /api/quotes/{id}/send': {
     req: async (w) => ({
