@@ -17,8 +17,8 @@ import type {
   ProductRow,
   RowBase,
   SolventApplicationRow,
-  TimerRow,
   StockMovementRow,
+  TimerRow,
 } from './rows';
 
 /** Who records the command and when (epoch ms, on the server's clock as well as known). */
@@ -240,7 +240,6 @@ export function maskAddRow(
   };
 }
 
-/** The longest wait a timer may have (the server refuses longer). */
 /** Stock is counted to 3 decimals (the server's numeric(12,3)); sums are rounded to match. */
 export const toStockQty = (n: number): number => Math.round(n * 1000) / 1000;
 
@@ -347,6 +346,7 @@ export function stockAfterUse(
   return toStockQty(product.stockQty - product.amountPerUse);
 }
 
+/** The longest wait a timer may have (the server refuses longer). */
 export const MAX_TIMER_MS = 30 * 24 * 60 * 60 * 1000;
 
 /** A timer with an absolute end: `endsAt` as given, or `startedAt + durationMs`. */
