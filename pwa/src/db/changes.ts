@@ -40,6 +40,7 @@ export const CHANGE_COMMANDS = {
   toggleCheck: 'check.toggle',
   recordClimate: 'climate.record',
   recordCash: 'payment.recordCash',
+  requestCardPayment: 'payment.request',
 } as const satisfies Record<string, Exclude<CommandName, 'photo.attach' | 'signature.capture'>>;
 
 export type Changes<R> = {

@@ -1,6 +1,8 @@
 import {
   allowedNextStages,
   canMoveStage,
+  cardRequestAmount,
+  cardRequestRow,
   checkGaugeOnSubstrate,
   flushTimerId,
   isJobStage,
@@ -749,6 +751,54 @@ export const COMMANDS: Registry = {
         paidAt: iso(ctx.atMs),
         recordedBy: ctx.userId,
       });
+    },
+  },
+  'payment.request': {
+    // A pending card payment at once, offline too; the server makes the checkout link with
+    // the provider when the request reaches it, and the pull brings the link.
+    async apply(store, a, ctx) {
+      if (await exists(store, 'payments', a.id)) return;
+      if ((await store.where('payments', 'opId', a.opId)).length) return;
+      const job = await mustGet(store, 'jobs', a.jobId, 'Job');
+      const payments = await store.where('payments', 'jobId', a.jobId);
+      let amountMinor = a.amountMinor ?? 0;
+      // A helper's phone has no price or payments: the server works the amount out.
+      if (typeof job.priceMinor === 'number' && ctx.role === 'owner') {
+        const quote = job.quoteId ? await store.get('quotes', job.quoteId) : undefined;
+        const deposit = (quote as { depositMinor?: unknown } | undefined)?.depositMinor;
+        const asked = cardRequestAmount(a, {
+          priceMinor: job.priceMinor,
+          payments: payments.map((p) => ({
+            kind: p.kind === 'deposit' || p.kind === 'refund' ? p.kind : 'balance',
+            status: p.status,
+            amountMinor: p.amountMinor,
+          })),
+          quoteDepositMinor: typeof deposit === 'number' ? deposit : null,
+        });
+        if ('code' in asked) throw new CommandRefusedError(asked.code, asked.message);
+        amountMinor = asked.amountMinor;
+      }
+      // A new link replaces the job's older open ones of the same kind (as on the server).
+      for (const older of payments) {
+        if (older.method !== 'card' || older.kind !== a.kind) continue;
+        if (older.status !== 'pending' && older.status !== 'failed') continue;
+        await patch(
+          store,
+          'payments',
+          older,
+          { status: 'expired', failureReason: 'Replaced by a newer payment link' },
+          ctx,
+        );
+      }
+      await store.put(
+        'payments',
+        cardRequestRow(
+          a,
+          amountMinor,
+          { quoteId: job.quoteId, recordedBy: ctx.role === 'customer' ? null : ctx.userId },
+          ctx,
+        ),
+      );
     },
   },
 };

@@ -38,6 +38,7 @@ const WORDS: Record<CommandName, string> = {
   'photo.attach': 'Photo',
   'signature.capture': 'Signature',
   'payment.recordCash': 'Cash or cheque payment',
+  'payment.request': 'Card payment link asked for',
 };
 
 export function commandWords(name: string): string {

@@ -250,6 +250,17 @@ export interface CommandArgs {
     method: 'cash' | 'cheque';
     amountMinor: number;
   };
+  /**
+   * A card payment link for the customer's own phone. The opId is made once per request on
+   * the device and travels with the queued mutation, so a retried push never asks twice.
+   */
+  'payment.request': {
+    id: string;
+    opId: string;
+    jobId: string;
+    kind: 'deposit' | 'balance';
+    amountMinor?: number;
+  };
 }
 
 export type CommandName = keyof CommandArgs;

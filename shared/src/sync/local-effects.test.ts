@@ -4,6 +4,8 @@ import { childId, DEFAULT_CHECKLIST } from '../jobs';
 import { bodyStyleTemplate } from '../panels';
 import { blobsReferenced } from './commands';
 import {
+  cardRequestAmount,
+  cardRequestRow,
   DEFAULT_SOLVENT,
   jobCreateRows,
   maskAddRow,
@@ -182,5 +184,78 @@ describe('blobsReferenced', () => {
     expect(blobsReferenced('photo.attach', { sha256: 'abc' })).toEqual(['abc']);
     expect(blobsReferenced('signature.capture', { imageSha256: 'def' })).toEqual(['def']);
     expect(blobsReferenced('pin.add', { sha256: 'abc' })).toEqual([]);
+  });
+});
+
+describe('a card payment request on the device (payment.request)', () => {
+  const paid = (
+    kind: 'deposit' | 'balance' | 'refund',
+    amountMinor: number,
+    status = 'succeeded',
+  ) => ({
+    kind,
+    status,
+    amountMinor,
+  });
+
+  it('asks for the whole amount due as the balance: the price less what went through', () => {
+    const payments = [paid('deposit', 10_000), paid('balance', 5_000, 'failed')];
+    expect(
+      cardRequestAmount(
+        { kind: 'balance' },
+        { priceMinor: 48_000, payments, quoteDepositMinor: null },
+      ),
+    ).toEqual({ amountMinor: 38_000 });
+  });
+
+  it("asks for the quote's deposit less deposits already paid, never above what is due", () => {
+    const refs = { priceMinor: 20_000, quoteDepositMinor: 6_000 };
+    expect(
+      cardRequestAmount({ kind: 'deposit' }, { ...refs, payments: [paid('deposit', 2_000)] }),
+    ).toEqual({ amountMinor: 4_000 });
+    expect(
+      cardRequestAmount({ kind: 'deposit' }, { ...refs, payments: [paid('balance', 17_000)] }),
+    ).toEqual({ amountMinor: 3_000 });
+    expect(
+      cardRequestAmount({ kind: 'deposit' }, { ...refs, payments: [paid('deposit', 6_000)] }),
+    ).toMatchObject({ code: 'deposit-paid' });
+    expect(
+      cardRequestAmount(
+        { kind: 'deposit' },
+        { priceMinor: 20_000, quoteDepositMinor: null, payments: [] },
+      ),
+    ).toMatchObject({ code: 'validation-failed' });
+  });
+
+  it('refuses as the server does when nothing is due or more than is due is asked for', () => {
+    const refs = { priceMinor: 10_000, quoteDepositMinor: null };
+    expect(
+      cardRequestAmount({ kind: 'balance' }, { ...refs, payments: [paid('balance', 10_000)] }),
+    ).toMatchObject({ code: 'nothing-due' });
+    expect(
+      cardRequestAmount({ kind: 'balance', amountMinor: 10_001 }, { ...refs, payments: [] }),
+    ).toMatchObject({ code: 'amount-exceeds-due' });
+    expect(
+      cardRequestAmount({ kind: 'balance', amountMinor: 2_500 }, { ...refs, payments: [] }),
+    ).toEqual({ amountMinor: 2_500 });
+  });
+
+  it('makes a pending card payment with no link yet, keyed by the request’s opId', () => {
+    const a = { id: 'p-1', opId: 'op-1', jobId, kind: 'balance' as const };
+    const row = cardRequestRow(a, 38_000, { quoteId: null, recordedBy: 'u-1' }, ctx);
+    expect(row).toMatchObject({
+      id: 'p-1',
+      opId: 'op-1',
+      jobId,
+      kind: 'balance',
+      method: 'card',
+      status: 'pending',
+      amountMinor: 38_000,
+      checkoutUrl: null,
+      providerRef: null,
+      paidAt: null,
+      version: 0,
+    });
+    expect(cardRequestRow(a, 38_000, { quoteId: null, recordedBy: 'u-1' }, ctx)).toEqual(row);
   });
 });

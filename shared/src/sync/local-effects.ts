@@ -5,7 +5,7 @@
  * rows — which is what a rebase after a pull relies on.
  */
 import { flushBy, maskRemoveBy, type MaskingTape, type SolventProduct } from '../dwell';
-import { childId, DEFAULT_CHECKLIST } from '../jobs';
+import { amountDueMinor, childId, DEFAULT_CHECKLIST, type PaymentLike } from '../jobs';
 import { bodyStyleTemplate, type BodyStyle } from '../panels';
 import { InputError } from '../errors';
 import type { CommandArgs, JobCreateArgs } from './commands';
@@ -15,6 +15,7 @@ import type {
   JobRow,
   MaskingItemRow,
   ProductRow,
+  PaymentRow,
   RowBase,
   SolventApplicationRow,
   StockMovementRow,
@@ -419,4 +420,83 @@ export function resumeTimer(
 export function timerRemainingMs(t: TimerTimes, nowMs: number): number {
   const from = t.pausedAt !== null ? Date.parse(t.pausedAt) : nowMs;
   return Math.max(0, Date.parse(t.endsAt) - from);
+}
+
+/** Why a card payment cannot be asked for: the server's code and words for the same rule. */
+export interface CardRequestRefusal {
+  code: 'nothing-due' | 'amount-exceeds-due' | 'deposit-paid' | 'validation-failed';
+  message: string;
+}
+
+/**
+ * What a card payment request (`payment.request`) asks for, by the server's rules: the amount
+ * given, else the whole amount due for a balance (shared `amountDueMinor`), or the quote's
+ * deposit less deposits already paid; never more than is due. A refusal in the server's words
+ * when it would say no. `quoteDepositMinor` is the deposit on the job's quote (null: none known).
+ */
+export function cardRequestAmount(
+  a: Pick<CommandArgs['payment.request'], 'kind' | 'amountMinor'>,
+  refs: { priceMinor: number; payments: readonly PaymentLike[]; quoteDepositMinor: number | null },
+): { amountMinor: number } | CardRequestRefusal {
+  const due = amountDueMinor(refs.priceMinor, refs.payments);
+  if (due === 0) return { code: 'nothing-due', message: 'Nothing is due on this job' };
+  let amount = a.amountMinor;
+  if (amount === undefined) {
+    if (a.kind === 'balance') amount = due;
+    else {
+      if (!refs.quoteDepositMinor) {
+        return {
+          code: 'validation-failed',
+          message: 'This job has no quote with a deposit: give amountMinor',
+        };
+      }
+      const depositsPaid = refs.payments
+        .filter((p) => p.kind === 'deposit' && p.status === 'succeeded')
+        .reduce((sum, p) => sum + p.amountMinor, 0);
+      amount = Math.min(due, refs.quoteDepositMinor - depositsPaid);
+      if (amount <= 0) {
+        return {
+          code: 'deposit-paid',
+          message: 'The deposit of this job is paid already; ask for the balance instead',
+        };
+      }
+    }
+  }
+  if (amount > due) {
+    return {
+      code: 'amount-exceeds-due',
+      message: `At most what is due can be asked for (${due} minor units)`,
+    };
+  }
+  return { amountMinor: amount };
+}
+
+/**
+ * The pending card payment a request makes on the device before it reaches the server: no
+ * checkout link yet (the server makes it with the provider and the pull brings it), no
+ * currency (the business's, filled in by the server). `pending` with a null `checkoutUrl` is
+ * how a screen knows the request is still on its way.
+ */
+export function cardRequestRow(
+  a: CommandArgs['payment.request'],
+  amountMinor: number,
+  refs: { quoteId: string | null; recordedBy: string | null },
+  ctx: EffectContext,
+): PaymentRow {
+  return {
+    ...newRowBase(a.id, ctx),
+    jobId: a.jobId,
+    quoteId: refs.quoteId,
+    kind: a.kind,
+    method: 'card',
+    amountMinor,
+    currency: '',
+    status: 'pending',
+    opId: a.opId,
+    providerRef: null,
+    checkoutUrl: null,
+    failureReason: null,
+    paidAt: null,
+    recordedBy: refs.recordedBy,
+  };
 }

@@ -1,21 +1,14 @@
-import { useMutation, useQuery } from '@tanstack/react-query';
+import { useQuery } from '@tanstack/react-query';
 import { currencyDigits, formatMinor } from '@panelpass/shared';
 import { useId, useState } from 'react';
-import { isApiError, isNetworkError } from '../../../api/errors';
 import { apiClient } from '../../../app/services';
 import { Notice } from '../../../components/Notice';
-import { useSync } from '../../../sync/context';
 import { useChanges } from '../../../sync/useChanges';
 import { useSession } from '../../auth/hooks/useSession';
 import { businessQuery } from '../../settings/api/businessApi';
 import type { HandoverData } from '../hooks/useHandover';
 import { amountDue, amountText, parseAmount } from '../model/handoverSummary';
-
-interface PaymentRequestAnswer {
-  checkoutUrl: string | null;
-  qrPng: string | null;
-  expiresAt: string | null;
-}
+import { CardPayment } from './CardPayment';
 
 /** The business's currency: from a payment on this job, else the owner's profile. */
 function useCurrency(data: HandoverData): string {
@@ -31,20 +24,14 @@ function useCurrency(data: HandoverData): string {
   return fromPayment || (typeof fromBusiness === 'string' && fromBusiness) || 'USD';
 }
 
-function problemWords(error: unknown): string {
-  if (isNetworkError(error)) return 'No signal reached the server. Try again when there is one.';
-  if (isApiError(error)) return error.message;
-  return 'The payment link could not be made. Try again.';
-}
-
 /**
- * The amount due and the ways to pay at handover: cash or cheque recorded on the phone (sent
- * with the next sync), or a card payment link for the customer's own phone (needs a signal).
+ * The amount due and the ways to pay at handover: cash or cheque recorded on the phone, or a
+ * card payment link for the customer's own phone; both are sent with the next sync, so both
+ * work without a signal.
  */
 export function PaymentPanel({ data }: { data: HandoverData }) {
   const ids = useId();
   const recorder = useChanges();
-  const online = useSync()?.status.online ?? navigator.onLine;
   const currency = useCurrency(data);
   const digits = currencyDigits(currency);
   const due = amountDue(data.job.priceMinor, data.payments, currency);
@@ -52,17 +39,6 @@ export function PaymentPanel({ data }: { data: HandoverData }) {
   const [method, setMethod] = useState<'cash' | 'cheque'>('cash');
   const [saved, setSaved] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
-  // One id pair per payment request, kept so a retry asks for the same payment (idempotent).
-  const [ask, setAsk] = useState(() => ({ id: crypto.randomUUID(), opId: crypto.randomUUID() }));
-
-  const card = useMutation({
-    mutationFn: () =>
-      apiClient.request<PaymentRequestAnswer>(`/api/jobs/${data.job.id}/payment-requests`, {
-        method: 'POST',
-        body: { id: ask.id, opId: ask.opId, kind: 'balance' },
-      }),
-  });
-
   const typed = amount ?? (due ? amountText(due.dueMinor, digits) : '');
   const amountMinor = parseAmount(typed, digits);
   const amountProblem =
@@ -71,7 +47,6 @@ export function PaymentPanel({ data }: { data: HandoverData }) {
       : amountMinor <= 0
         ? 'The amount must be above zero.'
         : null;
-  const pending = data.payments.filter((p) => p.status === 'pending' && p.method === 'card');
 
   async function record() {
     if (amountMinor === null || amountProblem) return;
@@ -108,11 +83,6 @@ export function PaymentPanel({ data }: { data: HandoverData }) {
       <p className={`pp-hand-due${due.settled ? ' pp-hand-due--settled' : ''}`} role="status">
         {due.words}
       </p>
-      {pending.length > 0 ? (
-        <p className="pp-section-hint">
-          A card payment is waiting for the customer; the amount due changes when it goes through.
-        </p>
-      ) : null}
       {saved ? <Notice tone="done">{saved}</Notice> : null}
       {due.settled || data.readOnly ? null : (
         <>
@@ -161,62 +131,7 @@ export function PaymentPanel({ data }: { data: HandoverData }) {
           </button>
 
           <h3 className="pp-hand-record__h">Card on the customer&apos;s phone</h3>
-          {card.data?.checkoutUrl ? (
-            <div className="pp-hand-qr">
-              {card.data.qrPng ? (
-                <img
-                  className="pp-hand-qr__image"
-                  src={card.data.qrPng}
-                  alt="QR code of the payment link"
-                  width={220}
-                  height={220}
-                />
-              ) : null}
-              <p className="pp-section-hint">
-                The customer scans this with their phone&apos;s camera and pays there. Or send them
-                the link:
-              </p>
-              <a
-                className="pp-hand-qr__link"
-                href={card.data.checkoutUrl}
-                target="_blank"
-                rel="noreferrer"
-              >
-                {card.data.checkoutUrl}
-              </a>
-              <button
-                type="button"
-                className="pp-small-button"
-                onClick={() => {
-                  card.reset();
-                  setAsk({ id: crypto.randomUUID(), opId: crypto.randomUUID() });
-                }}
-              >
-                Make a new link
-              </button>
-            </div>
-          ) : online ? (
-            <>
-              {card.error ? <Notice tone="stop">{problemWords(card.error)}</Notice> : null}
-              <button
-                type="button"
-                className="pp-button pp-button--quiet-go"
-                disabled={card.isPending}
-                onClick={() => card.mutate()}
-              >
-                {card.isPending
-                  ? 'Making the payment link…'
-                  : card.error
-                    ? 'Try again'
-                    : 'Show a QR code to pay by card'}
-              </button>
-            </>
-          ) : (
-            <Notice tone="wait">
-              A card payment needs a signal to make the link. Take cash or a cheque, or try again
-              when the phone is back online.
-            </Notice>
-          )}
+          <CardPayment data={data} currency={currency} />
         </>
       )}
     </div>
