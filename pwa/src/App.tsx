@@ -10,6 +10,7 @@ const StartBusinessPage = lazyPage(() => import('./pages/StartBusinessPage'));
 const InviteAcceptPage = lazyPage(() => import('./pages/InviteAcceptPage'));
 const CustomerHomePage = lazyPage(() => import('./pages/CustomerHomePage'));
 const CustomerLinkPage = lazyPage(() => import('./features/customer/CustomerLinkPage'));
+const PaidPage = lazyPage(() => import('./pages/PaidPage'));
 const MainTabs = lazyPage(() => import('./app/MainTabs'));
 
 /**
@@ -27,6 +28,7 @@ export function App() {
           <Route path="/invite/:token" element={<InviteAcceptPage />} />
           <Route path="/customer" element={<CustomerHomePage />} />
           <Route path="/c/:token" element={<CustomerLinkPage />} />
+          <Route path="/paid" element={<PaidPage />} />
           <Route path="/*" element={<MainTabs />} />
         </IonRouterOutlet>
       </IonReactRouter>

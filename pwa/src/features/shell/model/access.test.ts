@@ -68,6 +68,15 @@ describe('where a screen sends you', () => {
     expect(redirectFor('/c/a/b', 'customer')).toBe('/customer');
   });
 
+  it('opens the thank-you page after a card payment for everyone, signed in or not', () => {
+    expect(redirectFor('/paid', null)).toBeNull();
+    expect(redirectFor('/paid', 'customer')).toBeNull();
+    expect(redirectFor('/paid', 'owner')).toBeNull();
+    expect(redirectFor('/paid', 'tech')).toBeNull();
+    expect(redirectFor('/paid/more', null)).toBe('/sign-in');
+    expect(redirectFor('/paidish', 'customer')).toBe('/customer');
+  });
+
   it('opens an invite link for everyone', () => {
     expect(redirectFor('/invite/abc123', null)).toBeNull();
     expect(redirectFor('/invite/abc123', 'owner')).toBeNull();

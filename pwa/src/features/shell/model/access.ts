@@ -49,12 +49,15 @@ function isCustomerLink(pathname: string): boolean {
   return /^\/c\/[^/]+\/?$/.test(pathname);
 }
 
+/** The page the card payment page sends a customer back to: a thank-you, for anyone. */
+export const paidPath = '/paid';
+
 /**
  * Where to send someone who opens `pathname`, or null to let them stay. The one place that
  * knows which screens need a session and which role may see which tab.
  */
 export function redirectFor(pathname: string, role: Role | null): string | null {
-  if (isInvite(pathname) || isCustomerLink(pathname)) return null;
+  if (isInvite(pathname) || isCustomerLink(pathname) || pathname === paidPath) return null;
   const signedOutScreen = within(pathname, signInPath) || within(pathname, startBusinessPath);
 
   if (role === null) return signedOutScreen ? null : signInPath;
