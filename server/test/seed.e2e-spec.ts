@@ -42,6 +42,7 @@ describe('demo data', () => {
       'booked',
       'closed',
       'correction',
+      'handover',
       'prep',
       'walkaround',
     ]);

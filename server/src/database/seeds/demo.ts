@@ -174,7 +174,7 @@ export interface DemoVisit {
   services: string[];
   helper: boolean;
   /** How far the visit has come. */
-  stage: 'booked' | 'walkaround' | 'prep' | 'correction' | 'closed';
+  stage: 'booked' | 'walkaround' | 'prep' | 'correction' | 'handover' | 'closed';
   notes: string;
   conditionNotes?: string;
 }
@@ -355,6 +355,37 @@ export const demoVisits: DemoVisit[] = [
     stage: 'closed',
     notes: '',
     conditionNotes: 'Clean car; light marring from the dealer wash.',
+  },
+  {
+    // At Handover this afternoon, the owner's own: the customer signs and pays by card on
+    // their own phone (the browser test of the card payment uses this visit and closes it).
+    key: 'coupe',
+    customer: {
+      name: 'Solenne Brackwater',
+      email: 'solenne.brackwater@customers.example',
+      phone: '555-0153',
+      address: '26 Tidewater Crescent, Larkspur Bay',
+      lat: 44.6336,
+      lng: -124.0449,
+    },
+    vehicle: {
+      make: 'Orrin',
+      model: 'Vale',
+      year: 2020,
+      bodyStyle: 'coupe',
+      colour: 'deep red',
+      paintNotes: 'Swirls on the hood and trunk lid; clear coat thinner on the edges',
+      plate: 'LKB 5538',
+    },
+    day: 0,
+    from: 15,
+    to: 18,
+    priceMinor: 64_000,
+    services: ['wash', 'decontaminate', 'one-step', 'protect'],
+    helper: false,
+    stage: 'handover',
+    notes: 'Customer home from 17:00; pays by card.',
+    conditionNotes: 'Swirls on the hood and trunk lid. Small scuff on the rear bumper (noted).',
   },
 ];
 

@@ -221,7 +221,7 @@ export async function seedDemo(ds: DataSource, bus: CommandBus): Promise<boolean
         amountMinor: Math.round(visit.priceMinor * 0.2),
       });
     }
-    if (visit.stage === 'closed') {
+    if (visit.stage === 'closed' || visit.stage === 'handover') {
       for (const stage of ['correction', 'finish']) await setStage(stage);
       const keepDry = randomUUID();
       await run(worker, 'timer.start', {
@@ -234,6 +234,8 @@ export async function seedDemo(ds: DataSource, bus: CommandBus): Promise<boolean
       });
       await run(worker, 'timer.ack', { id: keepDry });
       await setStage('handover');
+    }
+    if (visit.stage === 'closed') {
       await run(owner, 'payment.recordCash', {
         id: randomUUID(),
         opId: randomUUID(),
