@@ -1,18 +1,26 @@
 import { HttpStatus, Injectable, OnModuleInit } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { type BodyStyle, childId } from '@panelpass/shared';
+import { type BodyStyle, childId, formatMinor } from '@panelpass/shared';
+import { randomBytes } from 'node:crypto';
 import { DataSource, EntityManager, FindOptionsWhere, In, Not } from 'typeorm';
+import { sha256 } from '../auth/auth.service';
 import type { Actor } from '../auth/current-user.decorator';
+import { Business } from '../businesses/business.entity';
 import { BusinessesService } from '../businesses/businesses.service';
 import { CommandBus } from '../commands/command-bus.service';
 import { command, type CommandContext } from '../commands/command.types';
 import { AppException, notFound } from '../common/app.exception';
 import type { Page } from '../common/dto/page.dto';
 import { alreadyCreated, checkVersion, findInBusiness } from '../common/scope';
+import type { EnvironmentVariables } from '../config/env.validation';
+import { CustomerLink } from '../customer-links/customer-link.entity';
 import { Customer } from '../customers/customer.entity';
 import type { JsonObject } from '../database/synced.entity';
+import { when } from '../documents/documents.service';
 import { Job } from '../jobs/job.entity';
 import { JobsService } from '../jobs/jobs.service';
+import { MailOutbox } from '../mail/mail-outbox.service';
 import { Vehicle } from '../vehicles/vehicle.entity';
 import {
   AcceptQuoteDto,
@@ -51,6 +59,32 @@ export async function quoteInScope(m: EntityManager, actor: Actor, id: string): 
   return quote;
 }
 
+const esc = (s: string): string =>
+  s.replace(
+    /[&<>"']/g,
+    (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!,
+  );
+
+/** The visit a quote offers, from its stored inputs (ISO strings in JSON), if any. */
+function offeredWindow(inputs: JsonObject): { start: Date; end: Date } | null {
+  const start = typeof inputs.windowStart === 'string' ? new Date(inputs.windowStart) : null;
+  const end = typeof inputs.windowEnd === 'string' ? new Date(inputs.windowEnd) : null;
+  if (!start || !end || Number.isNaN(start.getTime()) || Number.isNaN(end.getTime())) return null;
+  return { start, end };
+}
+
+/** Both ends of the offered visit or neither, the end after the start. */
+function checkWindow(inputs: QuoteInputsDto): void {
+  const { windowStart: start, windowEnd: end } = inputs;
+  if (start === undefined && end === undefined) return;
+  if (start === undefined || end === undefined || end.getTime() <= start.getTime()) {
+    const message = 'inputs.windowEnd must come with inputs.windowStart, and after it';
+    throw new AppException(HttpStatus.BAD_REQUEST, 'validation-failed', message, [
+      { field: 'inputs.windowEnd', rules: { order: message } },
+    ]);
+  }
+}
+
 function notAllowed(quote: Quote, action: string, allowed: readonly string[]): AppException {
   return new AppException(
     HttpStatus.CONFLICT,
@@ -67,7 +101,15 @@ export class QuotesService implements OnModuleInit {
     private readonly bus: CommandBus,
     private readonly businesses: BusinessesService,
     private readonly jobs: JobsService,
-  ) {}
+    private readonly outbox: MailOutbox,
+    config: ConfigService<EnvironmentVariables, true>,
+  ) {
+    this.publicUrl = config.get('PUBLIC_URL', { infer: true }).replace(/\/$/, '');
+    this.linkHours = config.get('CUSTOMER_LINK_HOURS', { infer: true });
+  }
+
+  private readonly publicUrl: string;
+  private readonly linkHours: number;
 
   onModuleInit(): void {
     this.bus.register(
@@ -108,6 +150,7 @@ export class QuotesService implements OnModuleInit {
     const { actor, m } = ctx;
     const existing = await alreadyCreated(m, Quote, actor, a.id);
     if (existing) return this.withLines(m, existing);
+    checkWindow(a.inputs);
     const customer = await findInBusiness(m, Customer, actor, a.customerId, 'Customer');
     const vehicle = await findInBusiness(m, Vehicle, actor, a.vehicleId, 'Vehicle');
     if (vehicle.customerId !== customer.id) {
@@ -136,6 +179,7 @@ export class QuotesService implements OnModuleInit {
     checkVersion(quote, expectedVersion, 'quote');
     if (!EDITABLE.includes(quote.status as QuoteStatus))
       throw notAllowed(quote, 'changed', EDITABLE);
+    if (inputs) checkWindow(inputs);
     if (validUntil !== undefined) await m.update(Quote, { id }, { validUntil });
     const vehicle = await m.findOneOrFail(Vehicle, {
       where: { id: quote.vehicleId },
@@ -144,10 +188,64 @@ export class QuotesService implements OnModuleInit {
     return this.reprice(m, id, inputs ?? (quote.inputs as unknown as QuoteInputsDto), vehicle);
   }
 
-  /** Marks the quote sent (the e-mail comes with the mail feature). Sending again is harmless. */
+  /**
+   * Marks the quote sent and e-mails the customer a sign-in link (single use, like
+   * `customer.sendLink`) to see it and accept or decline it. Sending again sends a fresh link
+   * and keeps the first `sentAt`. A customer without an e-mail address is refused (409).
+   */
   async send({ actor, m }: CommandContext, { id }: SendQuoteDto): Promise<QuoteWithLines> {
     const quote = await findInBusiness(m, Quote, actor, id, 'Quote');
     if (!EDITABLE.includes(quote.status as QuoteStatus)) throw notAllowed(quote, 'sent', EDITABLE);
+    const customer = await findInBusiness(m, Customer, actor, quote.customerId, 'Customer');
+    if (!customer.email) {
+      throw new AppException(
+        HttpStatus.CONFLICT,
+        'no-email',
+        'This customer has no e-mail address; add one to the customer before sending the quote',
+      );
+    }
+    const business = await m.findOneByOrFail(Business, { id: actor.businessId });
+    const token = randomBytes(32).toString('base64url');
+    const expiresAt = new Date(Date.now() + this.linkHours * 3_600_000);
+    await m.insert(CustomerLink, {
+      businessId: actor.businessId,
+      customerId: customer.id,
+      tokenHash: sha256(token),
+      sentTo: customer.email,
+      createdBy: actor.userId,
+      expiresAt,
+    });
+    const link = `${this.publicUrl}/c/${token}?quote=${quote.id}`;
+    const total = formatMinor(quote.totalMinor, quote.currency);
+    const deposit =
+      quote.depositMinor > 0
+        ? `A deposit of ${formatMinor(quote.depositMinor, quote.currency)} books the visit.`
+        : '';
+    const offered = offeredWindow(quote.inputs);
+    const visit = offered ? `The visit we offer: ${when(offered.start, business.timezone)}.` : '';
+    const until = when(expiresAt, business.timezone);
+    const paragraphs = [
+      `Hello ${customer.name},`,
+      `Here is your quote from ${business.name}: ${total} in all, tax included.`,
+      visit,
+      deposit,
+      'Open this link to see what it covers, and to accept it with your signature or decline it:',
+      link,
+      `The link works once and until ${until}. If it has run out, ask us for a new one.`,
+      business.name,
+    ].filter(Boolean);
+    await this.outbox.enqueue(m, {
+      businessId: actor.businessId,
+      // A sign-in link: the outbox removes it from the stored message once sent.
+      kind: 'customer-link',
+      subjectId: quote.id,
+      to: customer.email,
+      subject: `Your quote from ${business.name}: ${total}`,
+      text: paragraphs.join('\n\n'),
+      html: `<!doctype html><html><body style="font-family: system-ui, sans-serif; line-height: 1.5">
+${paragraphs.map((p) => (p === link ? `<p><a href="${esc(link)}">${esc(link)}</a></p>` : `<p>${esc(p)}</p>`)).join('\n')}
+</body></html>`,
+    });
     await m.update(Quote, { id }, { status: 'sent', sentAt: quote.sentAt ?? new Date() });
     return this.withLines(m, await m.findOneByOrFail(Quote, { id }));
   }
@@ -178,6 +276,16 @@ export class QuotesService implements OnModuleInit {
         { validUntil: quote.validUntil },
       );
     }
+    const offered = offeredWindow(quote.inputs);
+    const windowStart = a.windowStart ?? offered?.start;
+    const windowEnd = a.windowEnd ?? offered?.end;
+    if (!windowStart || !windowEnd) {
+      throw new AppException(
+        HttpStatus.BAD_REQUEST,
+        'window-needed',
+        'This quote offers no visit time: give windowStart and windowEnd to book it',
+      );
+    }
     const services = await m.find(QuoteLine, {
       where: { quoteId: quote.id, kind: 'service' },
       order: { position: 'ASC' },
@@ -197,8 +305,8 @@ export class QuotesService implements OnModuleInit {
       customerId: quote.customerId,
       vehicleId: quote.vehicleId,
       quoteId: quote.id,
-      windowStart: a.windowStart,
-      windowEnd: a.windowEnd,
+      windowStart,
+      windowEnd,
       priceMinor: quote.totalMinor,
       services: services.map((l) => l.description.slice(0, 60)),
       assignedTechId: null,

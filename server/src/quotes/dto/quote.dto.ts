@@ -99,6 +99,20 @@ export class QuoteInputsDto {
   @IsString()
   @MaxLength(4000)
   notes?: string;
+
+  /**
+   * The visit the quote offers (optional): when the customer accepts without choosing a
+   * time, the job is booked for this window.
+   */
+  @IsOptional()
+  @Type(() => Date)
+  @IsDate()
+  windowStart?: Date;
+
+  @IsOptional()
+  @Type(() => Date)
+  @IsDate()
+  windowEnd?: Date;
 }
 
 export class QuoteFieldsDto {
@@ -140,13 +154,16 @@ export class AcceptQuoteBodyDto {
   @IsUUID()
   jobId: string;
 
+  /** The visit's window; left out, the window the quote offers (`inputs.windowStart`/`End`). */
+  @IsOptional()
   @Type(() => Date)
   @IsDate()
-  windowStart: Date;
+  windowStart?: Date;
 
+  @IsOptional()
   @Type(() => Date)
   @IsDate()
-  windowEnd: Date;
+  windowEnd?: Date;
 }
 
 /** `quote.accept` (owner, or the quote's customer): books a job at the quote's total. */
