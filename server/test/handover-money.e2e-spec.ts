@@ -352,6 +352,48 @@ describe('handover and money', () => {
     expect(await ds().query('SELECT id FROM payments WHERE op_id = $1', [viaSync])).toHaveLength(1);
   });
 
+  it('a card payment asked for offline reaches the server once, however often the push is retried, and its link syncs back', async () => {
+    const { jobId } = await jobAt('handover', 30_000);
+    // Queued on the phone without a signal: one mutation, its opId made once on the device.
+    const clientId = randomUUID();
+    const opId = randomUUID();
+    const queued = {
+      id: 1,
+      name: 'payment.request',
+      args: { id: randomUUID(), opId, jobId, kind: 'balance' },
+      createdAt: new Date().toISOString(),
+    };
+    const push = () =>
+      http(w.app)
+        .post('/api/sync/push')
+        .auth(owner.accessToken, bearer)
+        .send({ clientId, mutations: [queued] })
+        .expect(200);
+    expect((await push()).body.results).toEqual([{ id: 1, status: 'applied' }]);
+    // The answer was lost: the phone sends the same outbox again.
+    expect((await push()).body.results).toEqual([{ id: 1, status: 'skipped' }]);
+    expect(sessionsFor(opId)).toHaveLength(1);
+    expect((await paymentsOf(jobId)).map((p) => [p.kind, p.status, p.amount_minor])).toEqual([
+      ['balance', 'pending', 30_000],
+    ]);
+    // The pull brings the pending card payment with the link the phone draws as a QR code.
+    const pulled = await http(w.app)
+      .get('/api/sync/pull')
+      .query({ clientId, cursor: 0 })
+      .auth(owner.accessToken, bearer)
+      .expect(200);
+    expect(pulled.body.lastMutationId).toBe(1);
+    const rows = (pulled.body.changes.payments ?? []) as {
+      opId: string;
+      method: string;
+      status: string;
+      checkoutUrl: string | null;
+    }[];
+    const row = rows.find((p) => p.opId === opId);
+    expect(row).toMatchObject({ method: 'card', status: 'pending' });
+    expect(row!.checkoutUrl).toBe(sessionsFor(opId)[0]!.url);
+  });
+
   it('a newer link replaces an open older one; nobody can mark a card payment paid by hand', async () => {
     const { jobId } = await jobAt('handover', 18_000);
     const first = await request(owner, jobId, {
