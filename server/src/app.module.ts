@@ -18,6 +18,7 @@ import { InvitesModule } from './invites/invites.module';
 import { PhotosModule } from './photos/photos.module';
 import { SignaturesModule } from './signatures/signatures.module';
 import { InvoicesModule } from './invoices/invoices.module';
+import { LedgerModule } from './ledger/ledger.module';
 import { PaymentsModule } from './payments/payments.module';
 import { QuotesModule } from './quotes/quotes.module';
 import { AuditModule } from './audit/audit.module';
@@ -72,6 +73,7 @@ import { CustomerAreaModule } from './customer-area/customer-area.module';
     QuotesModule,
     PaymentsModule,
     InvoicesModule,
+    LedgerModule,
     PhotosModule,
     SignaturesModule,
     DocumentsModule,

@@ -248,6 +248,9 @@ const fresh = {
 
 const e = (...s: Row['expect']) => s;
 
+/** The Ledger's routes all take a range of days. */
+const LEDGER_RANGE = { from: '2026-01-01', to: '2026-12-31' };
+
 /** The same request for everyone: "body of a new X" rows use fresh ids per call. */
 const MATRIX: Record<string, Row> = {
   'GET /api/auth/me': {
@@ -552,6 +555,26 @@ const MATRIX: Record<string, Row> = {
       body: { id: randomUUID(), productId: w.solventProductId, surfaceTempC: 22, inSun: true },
     }),
     expect: e(201, 201, 404, 403, 403, 404),
+  },
+  'GET /api/ledger/entries': {
+    req: () => ({ method: 'get', path: '/api/ledger/entries', query: LEDGER_RANGE }),
+    expect: e(200, 403, 403, 403, 403, 200),
+  },
+  'GET /api/ledger/jobs': {
+    req: () => ({ method: 'get', path: '/api/ledger/jobs', query: LEDGER_RANGE }),
+    expect: e(200, 403, 403, 403, 403, 200),
+  },
+  'GET /api/ledger/months': {
+    req: () => ({ method: 'get', path: '/api/ledger/months', query: LEDGER_RANGE }),
+    expect: e(200, 403, 403, 403, 403, 200),
+  },
+  'GET /api/ledger/export/invoices.csv': {
+    req: () => ({ method: 'get', path: '/api/ledger/export/invoices.csv', query: LEDGER_RANGE }),
+    expect: e(200, 403, 403, 403, 403, 200),
+  },
+  'GET /api/ledger/export/payments.csv': {
+    req: () => ({ method: 'get', path: '/api/ledger/export/payments.csv', query: LEDGER_RANGE }),
+    expect: e(200, 403, 403, 403, 403, 200),
   },
   'POST /api/masks/{id}/remove': {
     req: async (w) => ({
