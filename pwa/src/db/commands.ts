@@ -22,6 +22,7 @@ import {
   type CommandName,
   type EffectContext,
   type JobRow,
+  type QuoteInputsArgs,
   type Substrate,
   type SyncRowTypes,
   type SyncTable,
@@ -191,6 +192,46 @@ function withTime<K extends string>(key: K) {
     [key]: args[key] === undefined ? iso(nowMs) : isoOf(args[key]),
   });
 }
+
+/** A quote that may still change: a draft or a sent one (as the server says). */
+function quoteIsOpen(status: string, action: string): void {
+  if (status !== 'draft' && status !== 'sent') {
+    throw new CommandRefusedError(
+      'quote-status',
+      `A ${status} quote cannot be ${action}; only a draft or sent one`,
+    );
+  }
+}
+
+/** The offered visit's times as ISO strings (the server's JSON form of them). */
+function quoteInputsIso(inputs: QuoteInputsArgs): QuoteInputsArgs {
+  return {
+    ...inputs,
+    ...(inputs.windowStart === undefined ? {} : { windowStart: isoOf(inputs.windowStart) }),
+    ...(inputs.windowEnd === undefined ? {} : { windowEnd: isoOf(inputs.windowEnd) }),
+  };
+}
+
+/** Both ends of an offered visit or neither, the end after the start (as the server checks). */
+function checkOfferedWindow(inputs: QuoteInputsArgs): void {
+  const { windowStart, windowEnd } = inputs;
+  if (windowStart === undefined && windowEnd === undefined) return;
+  if (
+    windowStart === undefined ||
+    windowEnd === undefined ||
+    !(Date.parse(windowEnd) > Date.parse(windowStart))
+  ) {
+    throw new CommandRefusedError(
+      'validation-failed',
+      'The visit offered must end after it starts',
+    );
+  }
+}
+
+const stringField = (record: Record<string, unknown>, key: string): string | undefined => {
+  const value = record[key];
+  return typeof value === 'string' ? value : undefined;
+};
 
 type Registry = { [N in CommandName]: CommandDef<N> };
 
@@ -726,6 +767,150 @@ export const COMMANDS: Registry = {
         record: a.record,
         signedAt: iso(ctx.atMs),
       });
+    },
+  },
+  'quote.create': {
+    prepare: (a) => ({ ...a, inputs: quoteInputsIso(a.inputs) }),
+    async apply(store, a, ctx) {
+      ownerOnly(ctx, 'make quotes');
+      if (await exists(store, 'quotes', a.id)) return;
+      const customer = await mustGet(store, 'customers', a.customerId, 'Customer');
+      const vehicle = await mustGet(store, 'vehicles', a.vehicleId, 'Vehicle');
+      if (vehicle.customerId !== customer.id) {
+        throw new CommandRefusedError(
+          'vehicle-not-of-customer',
+          "That vehicle is not this customer's",
+        );
+      }
+      checkOfferedWindow(a.inputs);
+      // The totals are the server's to store (it prices with the same shared code); until the
+      // pull brings them the screens price the quote from its inputs on the phone.
+      await store.put('quotes', {
+        ...newRowBase(a.id, ctx),
+        customerId: a.customerId,
+        vehicleId: a.vehicleId,
+        status: 'draft',
+        inputs: { ...a.inputs },
+        subtotalMinor: 0,
+        discountMinor: 0,
+        taxMinor: 0,
+        totalMinor: 0,
+        depositMinor: 0,
+        labourHours: 0,
+        currency: '',
+        validUntil: a.validUntil ?? null,
+        sentAt: null,
+        acceptedAt: null,
+        jobId: null,
+      });
+    },
+  },
+  'quote.update': {
+    prepare: (a) => (a.inputs === undefined ? a : { ...a, inputs: quoteInputsIso(a.inputs) }),
+    async apply(store, a, ctx) {
+      ownerOnly(ctx, 'change quotes');
+      const quote = await mustGet(store, 'quotes', a.id, 'Quote');
+      quoteIsOpen(quote.status, 'changed');
+      if (a.inputs) checkOfferedWindow(a.inputs);
+      await patch(
+        store,
+        'quotes',
+        quote,
+        {
+          ...(a.inputs === undefined ? {} : { inputs: { ...a.inputs } }),
+          ...(a.validUntil === undefined ? {} : { validUntil: a.validUntil }),
+        },
+        ctx,
+      );
+    },
+  },
+  'quote.send': {
+    async apply(store, a, ctx) {
+      ownerOnly(ctx, 'send quotes');
+      const quote = await mustGet(store, 'quotes', a.id, 'Quote');
+      quoteIsOpen(quote.status, 'sent');
+      const customer = await store.get('customers', quote.customerId);
+      if (customer && !customer.email) {
+        throw new CommandRefusedError(
+          'no-email',
+          'This customer has no e-mail address; add one to the customer before sending the quote',
+        );
+      }
+      await patch(
+        store,
+        'quotes',
+        quote,
+        { status: 'sent', sentAt: quote.sentAt ?? iso(ctx.atMs) },
+        ctx,
+      );
+    },
+  },
+  'quote.accept': {
+    prepare: (a) => ({
+      ...a,
+      ...(a.windowStart === undefined ? {} : { windowStart: isoOf(a.windowStart) }),
+      ...(a.windowEnd === undefined ? {} : { windowEnd: isoOf(a.windowEnd) }),
+    }),
+    async apply(store, a, ctx) {
+      ownerOnly(ctx, 'accept quotes for the customer');
+      const quote = await mustGet(store, 'quotes', a.id, 'Quote');
+      if (quote.status === 'accepted' && quote.jobId) return;
+      quoteIsOpen(quote.status, 'accepted');
+      const windowStart = a.windowStart ?? stringField(quote.inputs, 'windowStart');
+      const windowEnd = a.windowEnd ?? stringField(quote.inputs, 'windowEnd');
+      if (!windowStart || !windowEnd) {
+        throw new CommandRefusedError(
+          'window-needed',
+          'This quote offers no visit time: choose one to book it',
+        );
+      }
+      const customer = await mustGet(store, 'customers', quote.customerId, 'Customer');
+      const vehicle = await mustGet(store, 'vehicles', quote.vehicleId, 'Vehicle');
+      const services = (await store.where('quote_lines', 'quoteId', quote.id))
+        .filter((l) => l.kind === 'service')
+        .sort((x, y) => x.position - y.position)
+        .map((l) => l.description.slice(0, 60));
+      if (!(await exists(store, 'jobs', a.jobId))) {
+        let rows;
+        try {
+          rows = jobCreateRows(
+            {
+              id: a.jobId,
+              customerId: quote.customerId,
+              vehicleId: quote.vehicleId,
+              quoteId: quote.id,
+              windowStart,
+              windowEnd,
+              priceMinor: quote.totalMinor,
+              services,
+              assignedTechId: null,
+            },
+            { customer, vehicle },
+            ctx,
+          );
+        } catch {
+          throw new CommandRefusedError('validation-failed', 'windowEnd must be after windowStart');
+        }
+        await store.put('jobs', rows.job);
+        for (const panel of rows.panels) await store.put('job_panels', panel);
+        for (const item of rows.checklist) await store.put('checklist_items', item);
+      }
+      await patch(
+        store,
+        'quotes',
+        quote,
+        { status: 'accepted', acceptedAt: iso(ctx.atMs), jobId: a.jobId },
+        ctx,
+      );
+    },
+  },
+  'quote.decline': {
+    async apply(store, a, ctx) {
+      ownerOnly(ctx, 'decline quotes');
+      const quote = await mustGet(store, 'quotes', a.id, 'Quote');
+      if (quote.status === 'declined') return;
+      quoteIsOpen(quote.status, 'declined');
+      await patch(store, 'quotes', quote, { status: 'declined' }, ctx);
     },
   },
   'payment.recordCash': {

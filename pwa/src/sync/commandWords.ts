@@ -37,6 +37,11 @@ const WORDS: Record<CommandName, string> = {
   'climate.record': 'Weather reading',
   'photo.attach': 'Photo',
   'signature.capture': 'Signature',
+  'quote.create': 'New quote',
+  'quote.update': 'Quote changed',
+  'quote.send': 'Quote sent to the customer',
+  'quote.accept': 'Quote accepted for the customer',
+  'quote.decline': 'Quote marked declined',
   'payment.recordCash': 'Cash or cheque payment',
   'payment.request': 'Card payment link asked for',
 };

@@ -115,6 +115,24 @@ export interface TimerStartArgs {
   endsAt?: string;
 }
 
+/** A quote's choices, in the ids of the business settings (the server's `QuoteInputsDto`). */
+export interface QuoteInputsArgs {
+  sizeClass: string;
+  condition: string;
+  serviceIds: string[];
+  chips: number;
+  addOnIds: string[];
+  /** The travel band chosen, by its `upToKm`; or `distanceKm` instead. */
+  travelBand?: number;
+  /** Distance to the customer (km, one decimal); the band is looked up. */
+  distanceKm?: number;
+  discount?: { kind: 'percent' | 'fixed'; percentBp?: number; amountMinor?: number };
+  notes?: string;
+  /** The visit the quote offers (both or neither). */
+  windowStart?: string;
+  windowEnd?: string;
+}
+
 /** Every command a device may record, by name. */
 export interface CommandArgs {
   'customer.create': CustomerFields & { id: string };
@@ -242,6 +260,17 @@ export interface CommandArgs {
     record: Record<string, unknown>;
     recordHash: string;
   };
+  'quote.create': {
+    id: string;
+    customerId: string;
+    vehicleId: string;
+    inputs: QuoteInputsArgs;
+    validUntil?: string | null;
+  };
+  'quote.update': { id: string; inputs?: QuoteInputsArgs; validUntil?: string | null };
+  'quote.send': { id: string };
+  'quote.accept': { id: string; jobId: string; windowStart?: string; windowEnd?: string };
+  'quote.decline': { id: string };
   'payment.recordCash': {
     id: string;
     opId: string;

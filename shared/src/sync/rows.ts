@@ -246,13 +246,45 @@ export interface PaymentRow extends RowBase {
   recordedBy: string | null;
 }
 
+export interface QuoteRow extends RowBase {
+  customerId: string;
+  vehicleId: string;
+  /** draft, sent, accepted, declined. */
+  status: string;
+  /** The choices it was priced from (`QuoteInputsArgs`). */
+  inputs: Record<string, unknown>;
+  /** The server's pricing; 0 on a quote the server has not priced yet. */
+  subtotalMinor: number;
+  discountMinor: number;
+  taxMinor: number;
+  totalMinor: number;
+  depositMinor: number;
+  labourHours: number;
+  /** '' until the server has priced it. */
+  currency: string;
+  validUntil: string | null;
+  sentAt: string | null;
+  acceptedAt: string | null;
+  jobId: string | null;
+}
+
+export interface QuoteLineRow extends RowBase {
+  quoteId: string;
+  position: number;
+  kind: string;
+  description: string;
+  quantity: number;
+  unitPriceMinor: number;
+  amountMinor: number;
+}
+
 /** The row type of each synced table; tables the device only reads stay generic. */
 export interface SyncRowTypes {
   customers: CustomerRow;
   vehicles: VehicleRow;
   products: ProductRow;
-  quotes: RowBase;
-  quote_lines: RowBase;
+  quotes: QuoteRow;
+  quote_lines: QuoteLineRow;
   jobs: JobRow;
   job_panels: JobPanelRow;
   checklist_items: ChecklistItemRow;
