@@ -9,7 +9,7 @@ import {
 import { QueryClientProvider } from '@tanstack/react-query';
 import { Route } from 'react-router-dom';
 import { useCurrentUser } from '../features/auth/hooks/useCurrentUser';
-import { tabsForRole, type TabId } from '../features/shell/model/access';
+import { settingsPath, tabsForRole, type TabId } from '../features/shell/model/access';
 import { TimerDock } from '../features/timers/components/TimerDock';
 import { SyncProvider } from '../sync/SyncProvider';
 import { lazyPage } from './lazyPage';
@@ -22,6 +22,9 @@ const pages: Record<TabId, ReturnType<typeof lazyPage>> = {
   shelf: lazyPage(() => import('../pages/ShelfPage')),
   ledger: lazyPage(() => import('../pages/LedgerPage')),
 };
+
+/** Settings: not a tab; opened from the header's Settings button. */
+const SettingsPage = lazyPage(() => import('../pages/SettingsPage'));
 
 const icons: Record<TabId, string> = {
   today: calendarClearOutline,
@@ -56,6 +59,7 @@ function SignedInTabs() {
           const Page = pages[tab.id];
           return <Route key={tab.id} path={`${tab.path}/*`} element={<Page />} />;
         })}
+        {user ? <Route path={`${settingsPath}/*`} element={<SettingsPage />} /> : null}
       </IonRouterOutlet>
       {/* Alarms and the timer strip, above the tab bar (ion-tabs' bottom slot). */}
       {user ? <TimerDock slot="bottom" /> : null}

@@ -3,6 +3,7 @@ import { useEffect, useMemo } from 'react';
 import { apiClient } from '../../app/services';
 import { useSession } from '../auth/hooks/useSession';
 import { businessQuery } from './api/businessApi';
+import { useOwnUnits } from './hooks/useOwnUnits';
 import {
   DEFAULT_FIELD_SETTINGS,
   keepSettings,
@@ -25,7 +26,8 @@ function storage(): Storage | null {
  * conversions and formatters every field screen uses. From the server when there is a
  * signal; the last answer is kept on the phone, so it holds offline; µm and °C (and the
  * other defaults) until the owner's settings have been seen once. A helper is given no
- * settings by the server and works with the defaults.
+ * settings by the server and works with the defaults, in the display units they chose for
+ * themselves (Settings, on their phone).
  */
 export function useUnits(): UnitsView {
   const user = useSession()?.user ?? null;
@@ -37,6 +39,7 @@ export function useUnits(): UnitsView {
   });
   // TanStack Query keeps `data` the same object until the answer changes.
   const fresh = useMemo(() => (data === undefined ? null : readFieldSettings(data)), [data]);
+  const { own } = useOwnUnits();
 
   useEffect(() => {
     const store = storage();
@@ -47,6 +50,8 @@ export function useUnits(): UnitsView {
     if (fresh) return unitsView(fresh, 'server');
     const store = storage();
     const kept = store && businessId && isOwner ? readKeptSettings(store, businessId) : null;
-    return kept ? unitsView(kept, 'kept') : unitsView(DEFAULT_FIELD_SETTINGS, 'defaults');
-  }, [fresh, businessId, isOwner]);
+    if (kept) return unitsView(kept, 'kept');
+    const mine = !isOwner && own ? { ...DEFAULT_FIELD_SETTINGS, ...own } : DEFAULT_FIELD_SETTINGS;
+    return unitsView(mine, 'defaults');
+  }, [fresh, businessId, isOwner, own]);
 }

@@ -50,6 +50,14 @@ describe('where a screen sends you', () => {
     expect(redirectFor('/jobs/42', 'tech')).toBeNull();
   });
 
+  it('opens Settings (not a tab) for the owner and a helper, never for a customer', () => {
+    expect(redirectFor('/settings', 'owner')).toBeNull();
+    expect(redirectFor('/settings', 'tech')).toBeNull();
+    expect(redirectFor('/settings', 'customer')).toBe('/customer');
+    expect(redirectFor('/settings', null)).toBe('/sign-in');
+    expect(redirectFor('/settingsish', 'owner')).toBe('/today');
+  });
+
   it('does not mistake a look-alike path for a tab', () => {
     expect(redirectFor('/ledgerish', 'owner')).toBe('/today');
   });

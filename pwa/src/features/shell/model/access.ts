@@ -29,6 +29,8 @@ export function tabsForRole(role: Role): TabDefinition[] {
 export const signInPath = '/sign-in';
 export const startBusinessPath = '/start';
 export const customerHomePath = '/customer';
+/** Settings: not a tab, opened from the header; the owner's business, a helper's own units. */
+export const settingsPath = '/settings';
 
 /** Where each role lands after signing in. */
 export function homeFor(role: Role): string {
@@ -63,6 +65,7 @@ export function redirectFor(pathname: string, role: Role | null): string | null 
   if (role === null) return signedOutScreen ? null : signInPath;
   if (role === 'customer') return within(pathname, customerHomePath) ? null : customerHomePath;
 
-  const allowed = tabsForRole(role).some((tab) => within(pathname, tab.path));
+  const allowed =
+    within(pathname, settingsPath) || tabsForRole(role).some((tab) => within(pathname, tab.path));
   return allowed ? null : homeFor(role);
 }
