@@ -21,6 +21,11 @@ describe('dueWords', () => {
     expect(dueWords({ amountDueMinor: 0, stage: 'booked' })).toBe('Nothing to pay.');
   });
 
+  it("says the amount in the business's currency once it is known", () => {
+    expect(dueWords({ amountDueMinor: 35_050, stage: 'handover' }, 'EUR')).toBe('€350.50 to pay.');
+    expect(dueWords({ amountDueMinor: 35_050, stage: 'handover' }, 'JPY')).toBe('¥35,050 to pay.');
+  });
+
   it('names stages in words', () => {
     expect(stageWords('closed')).toBe('Finished');
     expect(stageWords('correction')).toBe('In progress');

@@ -1,3 +1,4 @@
+import { formatMinor } from '@panelpass/shared';
 import { isApiError, isNetworkError } from '../../../api/errors';
 
 /** A job as the customer's list answers it (GET /api/jobs, the fields this screen reads). */
@@ -5,7 +6,9 @@ export interface CustomerJob {
   id: string;
   stage: string;
   windowStart: string;
+  windowEnd: string;
   vehicleLabel: string;
+  quoteId?: string | null;
   amountDueMinor: number;
   priceMinor?: number;
 }
@@ -21,15 +24,20 @@ export function linkProblemWords(error: unknown): string {
 }
 
 /**
- * The amount due as a plain number with two decimals ("350.00 to pay"): the customer's
- * answers carry no currency, so no symbol is guessed.
+ * The amount due in the business's currency ("€350.00 to pay."); without a currency (not known
+ * yet) a plain number with two decimals, so no symbol is guessed.
  */
-export function dueWords(job: Pick<CustomerJob, 'amountDueMinor' | 'stage'>): string {
+export function dueWords(
+  job: Pick<CustomerJob, 'amountDueMinor' | 'stage'>,
+  currency?: string,
+): string {
   if (job.amountDueMinor <= 0) return job.stage === 'closed' ? 'Paid in full.' : 'Nothing to pay.';
-  const amount = new Intl.NumberFormat('en-US', {
-    minimumFractionDigits: 2,
-    maximumFractionDigits: 2,
-  }).format(job.amountDueMinor / 100);
+  const amount = currency
+    ? formatMinor(job.amountDueMinor, currency)
+    : new Intl.NumberFormat('en-US', {
+        minimumFractionDigits: 2,
+        maximumFractionDigits: 2,
+      }).format(job.amountDueMinor / 100);
   return `${amount} to pay.`;
 }
 
