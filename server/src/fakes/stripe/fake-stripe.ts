@@ -631,11 +631,13 @@ export class FakeStripe {
     const [, , id, step] = path.split('/'); // '', 'pay', id, step?
     const s = id ? this.sessions.get(id) : undefined;
     const html = (status: number, text: string) => {
+      // A browser holds form-action to the redirect after the post too: the app's return
+      // page (success_url, another origin) must be allowed, or paying leaves the card page.
+      const back = s ? originOf(s.success_url) : null;
       res.writeHead(status, {
         'Content-Type': 'text/html; charset=utf-8',
         'Cache-Control': 'no-store',
-        'Content-Security-Policy':
-          "default-src 'none'; style-src 'unsafe-inline'; form-action 'self'",
+        'Content-Security-Policy': `default-src 'none'; style-src 'unsafe-inline'; form-action 'self'${back ? ` ${back}` : ''}`,
       });
       res.end(text);
     };
@@ -906,4 +908,14 @@ function checkCard(card: string, exp: string, cvc: string, now: number): string 
   }
   if (!/^\d{3,4}$/.test(cvc.trim())) return "Your card's security code is incomplete.";
   return null;
+}
+
+/** The origin of a URL (`http://127.0.0.1:8080`), or null when it is not one. */
+function originOf(url: string): string | null {
+  try {
+    const { origin } = new URL(url);
+    return origin === 'null' ? null : origin;
+  } catch {
+    return null;
+  }
 }
