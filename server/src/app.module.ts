@@ -40,6 +40,7 @@ import { MailModule } from './mail/mail.module';
 import { DocumentsModule } from './documents/documents.module';
 import { HandoverModule } from './handover/handover.module';
 import { CustomerLinksModule } from './customer-links/customer-links.module';
+import { FollowUpsModule } from './follow-ups/follow-ups.module';
 import { CustomerAreaModule } from './customer-area/customer-area.module';
 
 @Module({
@@ -79,6 +80,7 @@ import { CustomerAreaModule } from './customer-area/customer-area.module';
     DocumentsModule,
     HandoverModule,
     CustomerLinksModule,
+    FollowUpsModule,
     CustomerAreaModule,
     AuditModule,
     SyncModule,

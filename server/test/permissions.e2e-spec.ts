@@ -356,6 +356,20 @@ const MATRIX: Record<string, Row> = {
     }),
     expect: e(200, 403, 403, 403, 403, 404),
   },
+  'GET /api/follow-ups': {
+    req: () => ({ method: 'get', path: '/api/follow-ups' }),
+    expect: e(200, 403, 403, 403, 403, 200),
+  },
+  'POST /api/follow-ups/{id}/cancel': {
+    req: async (w) => {
+      // A booking three days ahead has its appointment reminder scheduled.
+      const { jobId } = await makeJob(w.app, w.s.owner, { startInDays: 3 });
+      const list = await ok(w, 'get', `/api/follow-ups?jobId=${jobId}`);
+      const [followUp] = list.items as { id: string }[];
+      return { method: 'post', path: `/api/follow-ups/${followUp!.id}/cancel` };
+    },
+    expect: e(200, 403, 403, 403, 403, 404),
+  },
   'GET /api/invites': {
     req: () => ({ method: 'get', path: '/api/invites' }),
     expect: e(200, 403, 403, 403, 403, 200),

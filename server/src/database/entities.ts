@@ -6,6 +6,7 @@ import { ChipLayer } from '../chips/chip-layer.entity';
 import { Chip } from '../chips/chip.entity';
 import { ClimateReading } from '../climate/climate-reading.entity';
 import { Customer } from '../customers/customer.entity';
+import { FollowUp } from '../follow-ups/follow-up.entity';
 import { CustomerLink } from '../customer-links/customer-link.entity';
 import { Invite } from '../invites/invite.entity';
 import { Invoice } from '../invoices/invoice.entity';
@@ -67,4 +68,5 @@ export const entities = [
   OutboundMail,
   CustomerLink,
   PaymentEvent,
+  FollowUp,
 ];

@@ -2,6 +2,7 @@ import { Foundation1764600000000 } from './migrations/1764600000000-Foundation';
 import { BusinessRecords1764600001000 } from './migrations/1764600001000-BusinessRecords';
 import { Sync1764600002000 } from './migrations/1764600002000-Sync';
 import { HandoverMoney1764600005000 } from './migrations/1764600005000-HandoverMoney';
+import { FollowUps1764600015000 } from './migrations/1764600015000-FollowUps';
 
 /** Every migration in order. Append only; never edit one that has landed. */
 export const migrations = [
@@ -9,4 +10,5 @@ export const migrations = [
   BusinessRecords1764600001000,
   Sync1764600002000,
   HandoverMoney1764600005000,
+  FollowUps1764600015000,
 ];

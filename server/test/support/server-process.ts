@@ -3,7 +3,8 @@ import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { TEST_JWT_SECRET } from './app';
 
-const MAIN = join(__dirname, '..', '..', 'dist', 'main.js');
+/** The built server; PANELPASS_SERVER_MAIN points at another build (a private dist folder). */
+const MAIN = process.env.PANELPASS_SERVER_MAIN ?? join(__dirname, '..', '..', 'dist', 'main.js');
 
 /** The built server as a real process, to kill and restart in fault tests. */
 export class ServerProcess {
