@@ -1,3 +1,4 @@
+import { Link } from 'react-router-dom';
 import { TodayScreen } from '../features/today/components/TodayScreen';
 import { TabPage } from '../features/shell/components/TabPage';
 
@@ -6,6 +7,9 @@ export default function TodayPage() {
   return (
     <TabPage title="Today">
       <TodayScreen />
+      <Link className="pp-link" to="/jobs/calendar">
+        The week in the calendar
+      </Link>
     </TabPage>
   );
 }

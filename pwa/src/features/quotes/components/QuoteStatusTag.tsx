@@ -1,0 +1,28 @@
+import { IonIcon } from '@ionic/react';
+import {
+  checkmarkCircleOutline,
+  closeCircleOutline,
+  createOutline,
+  paperPlaneOutline,
+} from 'ionicons/icons';
+import { STATUS_WORDS, type QuoteStatus } from '../model/quoteStatus';
+
+const ICONS: Record<QuoteStatus, string> = {
+  draft: createOutline,
+  sent: paperPlaneOutline,
+  accepted: checkmarkCircleOutline,
+  declined: closeCircleOutline,
+};
+
+/** A quote's status: an icon and its word, never colour alone. */
+export function QuoteStatusTag({ status }: { status: QuoteStatus }) {
+  return (
+    <span className={`pp-quote-tag pp-quote-tag--${status}`}>
+      <IonIcon icon={ICONS[status]} aria-hidden="true" />
+      <span>
+        <span className="pp-quotes-hidden">Status: </span>
+        {STATUS_WORDS[status].short}
+      </span>
+    </span>
+  );
+}
