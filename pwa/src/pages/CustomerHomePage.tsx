@@ -20,12 +20,12 @@ export default function CustomerHomePage() {
         </IonToolbar>
       </IonHeader>
       <IonContent>
-        <main className="pp-page">
+        <div className="pp-page">
           {session ? <CustomerArea userId={session.user.id} name={session.user.name} /> : null}
           <div className="pp-actions">
             <SignOutButton />
           </div>
-        </main>
+        </div>
       </IonContent>
     </IonPage>
   );

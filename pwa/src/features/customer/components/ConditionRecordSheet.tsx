@@ -208,6 +208,9 @@ export function ConditionRecordSheet({
               Loading the condition record…
             </p>
           )}
+          <button type="button" className="pp-cust-quiet" onClick={onClose}>
+            Close the record
+          </button>
         </div>
       </IonContent>
     </IonModal>
