@@ -30,6 +30,7 @@ interface Fixture {
   recordJobId: string;
   quoteId: string;
   quoteTotal: string;
+  quoteDeposit: string;
   quoteLine: string;
   currency: string;
   pinNote: string;
@@ -208,6 +209,7 @@ async function makeFixture(): Promise<Fixture> {
   });
   const quote = await api<{
     totalMinor: number;
+    depositMinor: number;
     currency: string;
     lines: { description: string }[];
   }>(`/api/quotes/${quoteId}/send`, { token, method: 'POST', body: {} });
@@ -218,6 +220,7 @@ async function makeFixture(): Promise<Fixture> {
     recordJobId,
     quoteId,
     quoteTotal: formatMinor(quote.totalMinor, quote.currency),
+    quoteDeposit: formatMinor(quote.depositMinor, quote.currency),
     quoteLine: quote.lines[0]!.description,
     currency: business.currency,
     pinNote,
@@ -316,6 +319,8 @@ describe('the customer area on the customer’s own phone', () => {
     await button.click();
     await accept.waitFor({ state: 'hidden' });
     await card.getByText(`Accepted. Your visit is booked: ${visit}.`).waitFor();
+    // The deposit to book can be paid by card from here.
+    await card.getByRole('button', { name: `Pay the ${f.quoteDeposit} deposit by card` }).waitFor();
 
     // The server holds one booked job from this quote, and the signature over what was shown.
     const quote = await api<{ status: string; jobId: string }>(`/api/quotes/${f.quoteId}`, {

@@ -92,14 +92,16 @@ export interface PaymentLink {
   checkoutUrl: string | null;
 }
 
+/** A card payment link: the balance, or the deposit of a job booked from a quote. */
 export function requestPayment(
   client: ApiClient,
   jobId: string,
   ids: { id: string; opId: string },
+  kind: 'balance' | 'deposit' = 'balance',
 ): Promise<PaymentLink> {
   return client.request<PaymentLink>(`/api/jobs/${jobId}/payment-requests`, {
     method: 'POST',
-    body: { ...ids, kind: 'balance' },
+    body: { ...ids, kind },
   });
 }
 

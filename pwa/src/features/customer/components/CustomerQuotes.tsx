@@ -1,3 +1,4 @@
+import { formatMinor } from '@panelpass/shared';
 import { useId, useState } from 'react';
 import { Notice } from '../../../components/Notice';
 import { useCustomerJobs } from '../hooks/useCustomerJobs';
@@ -6,6 +7,7 @@ import {
   useCustomerQuotes,
   type QuoteListItem,
 } from '../hooks/useCustomerQuotes';
+import { usePayment } from '../hooks/usePayment';
 import { useQuoteAnswer } from '../hooks/useQuoteAnswer';
 import type { CustomerJob } from '../model/customerWords';
 import { problemWords } from '../model/problemWords';
@@ -18,6 +20,28 @@ function validWords(iso: string | null): string | null {
   const at = new Date(iso);
   if (Number.isNaN(at.getTime())) return null;
   return `Good until ${at.toLocaleDateString(undefined, { day: 'numeric', month: 'long', year: 'numeric' })}.`;
+}
+
+/** The deposit of a visit booked from a quote, by card, until some of it has been paid. */
+function DepositButton({ jobId, amount }: { jobId: string; amount: string }) {
+  const pay = usePayment(jobId, 'deposit');
+  return (
+    <>
+      {pay.error ? (
+        <Notice tone="stop">{problemWords(pay.error, 'The payment page did not open.')}</Notice>
+      ) : null}
+      <button
+        type="button"
+        className="pp-cust-quiet"
+        disabled={pay.isPending || pay.isSuccess}
+        onClick={() => pay.mutate()}
+      >
+        {pay.isPending || pay.isSuccess
+          ? 'Opening the payment page…'
+          : `Pay the ${amount} deposit by card`}
+      </button>
+    </>
+  );
 }
 
 function QuoteCard({
@@ -55,11 +79,19 @@ function QuoteCard({
         <div className="pp-loading" aria-busy="true" />
       )}
       {quote.status === 'accepted' ? (
-        <Notice tone="done">
-          {booked
-            ? `Accepted. Your visit is booked: ${windowWords(new Date(booked.windowStart), new Date(booked.windowEnd))}.`
-            : 'Accepted. Your visit is booked.'}
-        </Notice>
+        <>
+          <Notice tone="done">
+            {booked
+              ? `Accepted. Your visit is booked: ${windowWords(new Date(booked.windowStart), new Date(booked.windowEnd))}.`
+              : 'Accepted. Your visit is booked.'}
+          </Notice>
+          {job && quote.depositMinor > 0 && job.amountDueMinor >= quote.totalMinor ? (
+            <DepositButton
+              jobId={job.id}
+              amount={formatMinor(quote.depositMinor, quote.currency)}
+            />
+          ) : null}
+        </>
       ) : quote.status === 'declined' ? (
         <p className="pp-cust-hint">You declined this quote.</p>
       ) : quote.status === 'sent' && full.data ? (
