@@ -24,6 +24,8 @@ export function FieldSettingsSheet({ isOpen, onClose }: { isOpen: boolean; onClo
   const check = checkSettings(draft);
   const save = useMutation({
     mutationFn: (patch: FieldSettingsPatch) => saveFieldSettings(apiClient, patch),
+    // With no signal, say so at once rather than wait paused (and "Saving…") for one.
+    networkMode: 'always',
     onSuccess: (business) => {
       client.setQueryData(['business', businessId], business);
       onClose();

@@ -29,6 +29,8 @@ export function useBusinessSettings() {
   const business: OwnerBusiness | null = useMemo(() => readBusiness(query.data), [query.data]);
   const save = useMutation({
     mutationFn: (patch: BusinessPatch) => saveBusiness(apiClient, patch),
+    // Try at once and say so when there is no signal, rather than wait paused for one.
+    networkMode: 'always',
     onSuccess: (answer) => client.setQueryData(['business', businessId], answer),
   });
   return {

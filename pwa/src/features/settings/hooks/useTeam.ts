@@ -23,14 +23,17 @@ export function useTeam() {
   const invite = useMutation({
     mutationFn: (who: { email: string; name: string }) => createInvite(apiClient, who),
     onSuccess: refresh,
+    networkMode: 'always',
   });
   const remove = useMutation({
     mutationFn: (userId: string) => removeMember(apiClient, userId),
     onSuccess: refresh,
+    networkMode: 'always',
   });
   const withdraw = useMutation({
     mutationFn: (inviteId: string) => withdrawInvite(apiClient, inviteId),
     onSuccess: refresh,
+    networkMode: 'always',
   });
   return {
     members: team.data,
