@@ -114,7 +114,13 @@ export function MonthTotals({
 /** The chart's numbers in a table: its text alternative, and the figures to read exactly. */
 export function MonthsTable({ months, currency }: { months: LedgerMonth[]; currency: string }) {
   return (
-    <div className="pp-ledger-table-wrap">
+    // Scrolls sideways on a narrow phone: a named region the keyboard can reach.
+    <div
+      className="pp-ledger-table-wrap"
+      role="region"
+      aria-label="Profit per month, table"
+      tabIndex={0}
+    >
       <table className="pp-ledger-table">
         <caption>Profit per month</caption>
         <thead>

@@ -71,9 +71,11 @@ export function LedgerScreen({
               ? ' Parts not loaded before are left out.'
               : ''}
           </Notice>
-          <button type="button" className="pp-button pp-ledger-quiet" onClick={ledger.retry}>
-            Try again
-          </button>
+          {connection.deviceOffline ? null : (
+            <button type="button" className="pp-button pp-ledger-quiet" onClick={ledger.retry}>
+              Try again
+            </button>
+          )}
         </div>
       ) : null}
       {ledger.problem ? <Notice tone="stop">{problemWords(ledger.problem)}</Notice> : null}

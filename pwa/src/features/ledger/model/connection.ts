@@ -4,6 +4,8 @@ import { isNetworkError } from '../../../api/errors';
 export interface LedgerConnection {
   /** No network, or the server could not be reached: the Ledger needs a connection. */
   needsConnection: boolean;
+  /** The device itself says it has no network (trying again now cannot help). */
+  deviceOffline: boolean;
   /** Figures are on screen although they could not be checked now: when they were loaded. */
   shownFromMs: number | null;
   /** Something the screen wants has never been loaded here (nothing to show for it). */
@@ -26,6 +28,7 @@ export function connectionOf(online: boolean, queries: readonly Loadable[]): Led
   const loaded = queries.filter((q) => q.data !== undefined).map((q) => q.dataUpdatedAt);
   return {
     needsConnection,
+    deviceOffline: !online,
     shownFromMs: needsConnection && loaded.length ? Math.min(...loaded) : null,
     somethingMissing: needsConnection && queries.some((q) => q.data === undefined),
   };

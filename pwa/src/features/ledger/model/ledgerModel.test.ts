@@ -198,6 +198,7 @@ describe('needing a connection', () => {
   it('online with answers: nothing to say', () => {
     expect(connectionOf(true, [loaded(1), loaded(2)])).toEqual({
       needsConnection: false,
+      deviceOffline: false,
       shownFromMs: null,
       somethingMissing: false,
     });
@@ -206,6 +207,7 @@ describe('needing a connection', () => {
   it('offline: says so, and shows figures from the oldest answer on screen', () => {
     expect(connectionOf(false, [loaded(500), loaded(200), missing])).toEqual({
       needsConnection: true,
+      deviceOffline: true,
       shownFromMs: 200,
       somethingMissing: true,
     });
