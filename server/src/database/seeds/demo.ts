@@ -361,8 +361,8 @@ export const demoVisits: DemoVisit[] = [
     // their own phone (the browser test of the card payment uses this visit and closes it).
     key: 'coupe',
     customer: {
-      name: 'Solenne Brackwater',
-      email: 'solenne.brackwater@customers.example',
+      name: 'Solenne Tarrowby',
+      email: 'solenne.tarrowby@customers.example',
       phone: '555-0153',
       address: '26 Tidewater Crescent, Larkspur Bay',
       lat: 44.6336,
