@@ -2,6 +2,7 @@ import type { NestExpressApplication } from '@nestjs/platform-express';
 import { bodyStyleTemplate, childId } from '@panelpass/shared';
 import { randomUUID } from 'node:crypto';
 import { DataSource } from 'typeorm';
+import { signInCustomer } from './factories/customers';
 import { makeJob } from './factories/records';
 import { addTech, createTestApp, http, type Session, signUpOwner } from './support/app';
 
@@ -198,5 +199,25 @@ describe('customers, vehicles and jobs', () => {
       [jobId],
     );
     expect(rows).toEqual([{ command: 'job.create', user_id: owner.user.id }]);
+  });
+
+  it("a job's internal notes (a gate code, a remark) are the staff's: its customer never reads them", async () => {
+    const { jobId, customerId } = await makeJob(app, owner);
+    await http(app)
+      .patch(`/api/jobs/${jobId}`)
+      .auth(owner.accessToken, bearer)
+      .send({ notes: 'Gate code 4471; dog in the yard' })
+      .expect(200);
+    const customer = await signInCustomer(app, owner.user.businessId, customerId);
+
+    const own = await http(app).get(`/api/jobs/${jobId}`).auth(customer.accessToken, bearer);
+    expect(own.status).toBe(200);
+    expect(own.body).not.toHaveProperty('notes');
+    const list = await http(app).get('/api/jobs').auth(customer.accessToken, bearer).expect(200);
+    expect(list.body.items.map((j: { id: string }) => j.id)).toEqual([jobId]);
+    expect(list.body.items[0]).not.toHaveProperty('notes');
+
+    const staff = await http(app).get(`/api/jobs/${jobId}`).auth(owner.accessToken, bearer);
+    expect(staff.body.notes).toBe('Gate code 4471; dog in the yard');
   });
 });

@@ -52,9 +52,11 @@ export type BookingHook = (
   change: 'created' | 'updated' | 'removed',
 ) => Promise<void>;
 
-export interface JobSummary extends Omit<Job, 'priceMinor'> {
+export interface JobSummary extends Omit<Job, 'priceMinor' | 'notes'> {
   /** Absent for a helper: they see what is due, not the price. */
   priceMinor?: number;
+  /** The staff's internal notes (a gate code, a remark): absent for the job's customer. */
+  notes?: string;
   amountDueMinor: number;
   customerName: string;
   vehicleLabel: string;
@@ -282,7 +284,7 @@ export class JobsService implements OnModuleInit {
     return summary!;
   }
 
-  /** Adds names and the amount due; strips the price for a helper. */
+  /** Adds names and the amount due; strips the price for a helper and the notes for a customer. */
   async summarize(m: EntityManager, actor: Actor, jobs: Job[]): Promise<JobSummary[]> {
     if (!jobs.length) return [];
     const ids = jobs.map((j) => j.id);
@@ -300,10 +302,11 @@ export class JobsService implements OnModuleInit {
     );
     return jobs.map((job) => {
       const own = payments.filter((p) => p.jobId === job.id);
-      const { priceMinor, ...rest } = job;
+      const { priceMinor, notes, ...rest } = job;
       return {
         ...rest,
         ...(actor.role === 'tech' ? {} : { priceMinor }),
+        ...(actor.role === 'customer' ? {} : { notes }),
         amountDueMinor: amountDueMinor(
           priceMinor,
           own.map((p) => ({
