@@ -1,5 +1,5 @@
 import { useEffect, useId, useMemo, useState, type ReactNode } from 'react';
-import { Link, useNavigate } from 'react-router-dom';
+import { Link, useLocation, useNavigate } from 'react-router-dom';
 import {
   BODY_STYLES,
   type BodyStyle,
@@ -156,7 +156,14 @@ export function QuoteBuilder({
   const navigate = useNavigate();
   const uid = useId();
   const [draft, setDraft] = useState<QuoteDraft | null>(null);
-  const [saved, setSaved] = useState<string | null>(null);
+  const location = useLocation();
+  // What was just done, carried over when a new quote's page becomes the saved quote's page.
+  const [saved, setSaved] = useState<string | null>(() => {
+    const state: unknown = location.state;
+    return state && typeof state === 'object' && 'saved' in state && typeof state.saved === 'string'
+      ? state.saved
+      : null;
+  });
   const [busy, setBusy] = useState(false);
 
   const { settings: prices, currency, base } = settings;
@@ -227,20 +234,21 @@ export function QuoteBuilder({
     try {
       const id = await save(read.inputs);
       if (!id) return;
+      let words: string;
       if (send) {
         const sent = await mutate('quote.send', { id });
         if (!sent) return;
-        setSaved(
-          online
-            ? `Sent: ${customer?.customer.email ?? 'the customer'} gets an e-mail with a link to accept it.`
-            : 'Saved on this phone. It will be e-mailed to the customer when the phone has signal.',
-        );
+        words = online
+          ? `Sent: ${customer?.customer.email ?? 'the customer'} gets an e-mail with a link to accept it.`
+          : 'Saved on this phone. It will be e-mailed to the customer when the phone has signal.';
       } else {
-        setSaved(
-          online ? 'Quote saved.' : 'Quote saved on this phone; it goes to the server with signal.',
-        );
+        words = online
+          ? 'Quote saved.'
+          : 'Quote saved on this phone; it goes to the server with signal.';
       }
-      if (quoteId === null) navigate(`/jobs/quotes/${id}`, { replace: true });
+      setSaved(words);
+      if (quoteId === null)
+        navigate(`/jobs/quotes/${id}`, { replace: true, state: { saved: words } });
     } finally {
       setBusy(false);
     }
