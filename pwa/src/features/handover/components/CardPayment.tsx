@@ -1,5 +1,5 @@
 import { formatMinor } from '@panelpass/shared';
-import { useState } from 'react';
+import { useRef, useState } from 'react';
 import { Notice } from '../../../components/Notice';
 import { useSync } from '../../../sync/context';
 import { useChanges } from '../../../sync/useChanges';
@@ -23,7 +23,12 @@ export function CardPayment({ data, currency }: { data: HandoverData; currency: 
   const [busy, setBusy] = useState(false);
   const [checking, setChecking] = useState(false);
 
+  // Set at once (state waits for a render): a double tap with gloves asks only once.
+  const asking = useRef(false);
+
   async function ask() {
+    if (asking.current) return;
+    asking.current = true;
     setBusy(true);
     try {
       // One opId per request, made here once and kept with the queued change: however often
@@ -35,6 +40,7 @@ export function CardPayment({ data, currency }: { data: HandoverData; currency: 
         kind: 'balance',
       });
     } finally {
+      asking.current = false;
       setBusy(false);
     }
   }
@@ -50,10 +56,20 @@ export function CardPayment({ data, currency }: { data: HandoverData; currency: 
   }
 
   const amount = (minor: number) => formatMinor(minor, currency);
+  // A request the server refused for good (its local payment is gone again): say why.
+  const refused = sync?.status.rejected
+    .filter((r) => r.name === 'payment.request' && r.args.jobId === data.job.id)
+    .at(-1);
 
   if (state.phase === 'none') {
     return (
       <>
+        {refused ? (
+          <Notice tone="stop">
+            The last card payment request was refused: {refused.message} (It is listed under the
+            sync badge.)
+          </Notice>
+        ) : null}
         <p className="pp-section-hint">
           The customer pays on their own phone: this phone shows a QR code of the payment link.
           {online
@@ -71,9 +87,11 @@ export function CardPayment({ data, currency }: { data: HandoverData; currency: 
     const what = `Card payment of ${amount(state.payment.amountMinor)} asked for.`;
     return (
       <Notice tone="wait">
-        {online
-          ? `${what} Sending the request; the QR code shows here as soon as the payment link comes back.`
-          : `${what} No signal now: the request is kept on this phone and sent when there is signal. The QR code shows here then.`}
+        {!online
+          ? `${what} No signal now: the request is kept on this phone and sent when there is signal. The QR code shows here then.`
+          : sync?.status.lastError
+            ? `${what} Not sent yet (${sync.status.lastError}); it is tried again on its own.`
+            : `${what} Sending the request; the QR code shows here as soon as the payment link comes back.`}
       </Notice>
     );
   }
