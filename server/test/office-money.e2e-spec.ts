@@ -96,6 +96,23 @@ describe('office: payments, team and audit', () => {
     }).expect(409);
   });
 
+  it('cash or a cheque is never recorded above what is due, and says what is due', async () => {
+    const { jobId } = await makeJob(app, owner, { priceMinor: 20_000 });
+    const cash = (kind: string, amountMinor: number) =>
+      pay(jobId, { id: randomUUID(), opId: randomUUID(), kind, method: 'cash', amountMinor });
+    await cash('deposit', 4_000).expect(201);
+    const over = await cash('balance', 16_001).expect(409);
+    expect(over.body).toMatchObject({
+      code: 'amount-exceeds-due',
+      details: { dueMinor: 16_000, amountMinor: 16_001 },
+    });
+    await cash('balance', 16_000).expect(201);
+    const paidUp = await cash('balance', 1).expect(409);
+    expect(paidUp.body.message).toMatch(/paid in full/);
+    const job = await http(app).get(`/api/jobs/${jobId}`).auth(owner.accessToken, bearer);
+    expect(job.body.amountDueMinor).toBe(0);
+  });
+
   it('a payment amount must be above zero and its kind known, each named', async () => {
     const { jobId } = await makeJob(app, owner);
     const res = await pay(jobId, {

@@ -113,6 +113,23 @@ export class PaymentsService implements OnModuleInit {
     await jobInScope(m, actor, a.jobId);
     // One payment of a job at a time, so two refunds cannot both pass the check below.
     await m.findOne(Job, { where: { id: a.jobId }, lock: { mode: 'pessimistic_write' } });
+    if (a.kind !== 'refund') {
+      // Never more than is due: a second device that recorded the same cash offline, or a
+      // card payment that landed meanwhile, is refused with what is due rather than overpaid.
+      const job = await m.findOneByOrFail(Job, { id: a.jobId });
+      const payments = await m.find(Payment, { where: { jobId: a.jobId } });
+      const due = amountDueMinor(job.priceMinor, payments.map(asLike));
+      if (a.amountMinor > due) {
+        throw new AppException(
+          HttpStatus.CONFLICT,
+          'amount-exceeds-due',
+          due === 0
+            ? 'Nothing is due on this job: it is paid in full'
+            : `At most what is due can be recorded (${due} minor units)`,
+          { dueMinor: due, amountMinor: a.amountMinor },
+        );
+      }
+    }
     if (a.kind === 'refund') {
       const paidMinor = await this.paidMinor(m, a.jobId);
       if (a.amountMinor > paidMinor) {

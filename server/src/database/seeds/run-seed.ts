@@ -218,7 +218,7 @@ export async function seedDemo(ds: DataSource, bus: CommandBus): Promise<boolean
         jobId,
         kind: 'deposit',
         method: 'cash',
-        amountMinor: Math.round(visit.priceMinor * 0.2),
+        amountMinor: depositOf(visit.priceMinor),
       });
     }
     if (visit.stage === 'closed' || visit.stage === 'handover') {
@@ -242,12 +242,18 @@ export async function seedDemo(ds: DataSource, bus: CommandBus): Promise<boolean
         jobId,
         kind: 'balance',
         method: 'cheque',
-        amountMinor: visit.priceMinor,
+        // What is left after the deposit: the visit is paid in full, never over.
+        amountMinor: visit.priceMinor - depositOf(visit.priceMinor),
       });
       await setStage('closed');
     }
   }
   return true;
+}
+
+/** The demo's cash deposit: a fifth of the price, taken once correction starts. */
+function depositOf(priceMinor: number): number {
+  return Math.round(priceMinor * 0.2);
 }
 
 async function main(): Promise<void> {
