@@ -1,5 +1,6 @@
 import {
   allowedNextStages,
+  amountDueMinor,
   canMoveStage,
   cardRequestAmount,
   cardRequestRow,
@@ -918,7 +919,28 @@ export const COMMANDS: Registry = {
       ownerOnly(ctx, 'record payments');
       if (await exists(store, 'payments', a.id)) return;
       if ((await store.where('payments', 'opId', a.opId)).length) return;
-      await mustGet(store, 'jobs', a.jobId, 'Job');
+      const job = await mustGet(store, 'jobs', a.jobId, 'Job');
+      if (a.kind !== 'refund' && typeof job.priceMinor === 'number') {
+        // Never more than is due, as the server refuses it (a second phone may differ; the
+        // server's answer then comes back as a refusal).
+        const payments = await store.where('payments', 'jobId', a.jobId);
+        const due = amountDueMinor(
+          job.priceMinor,
+          payments.map((p) => ({
+            kind: p.kind === 'deposit' || p.kind === 'refund' ? p.kind : 'balance',
+            status: p.status,
+            amountMinor: p.amountMinor,
+          })),
+        );
+        if (a.amountMinor > due) {
+          throw new CommandRefusedError(
+            'amount-exceeds-due',
+            due === 0
+              ? 'Nothing is due on this job: it is paid in full'
+              : `At most what is due can be recorded (${due} minor units)`,
+          );
+        }
+      }
       await store.put('payments', {
         ...newRowBase(a.id, ctx),
         jobId: a.jobId,

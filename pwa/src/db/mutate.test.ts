@@ -249,6 +249,7 @@ describe('local effects', () => {
 
   it('payment.recordCash is stored once per operation id', async () => {
     await bookJob();
+    await mutate(db, 'job.update', { id: jobId, priceMinor: 20_000 });
     const cash = {
       jobId,
       kind: 'deposit',

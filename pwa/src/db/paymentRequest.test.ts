@@ -123,6 +123,22 @@ describe('payment.request on the phone', () => {
     expect(await db.outbox.count()).toBe(before + 1);
   });
 
+  it('refuses cash above what is due on the phone too, as the server does, and queues nothing', async () => {
+    const before = await db.outbox.count();
+    await expect(
+      mutate(db, 'payment.recordCash', {
+        id: 'cash-over',
+        opId: 'cash-op-over',
+        jobId,
+        kind: 'balance',
+        method: 'cash',
+        amountMinor: 40_001,
+      }),
+    ).rejects.toMatchObject({ code: 'amount-exceeds-due' });
+    expect(await db.rows('payments').get('cash-over')).toBeUndefined();
+    expect(await db.outbox.count()).toBe(before);
+  });
+
   it("leaves the amount to the server on a helper's phone (it has no price)", async () => {
     const helperDb = openTestDb(freshIndexedDb(), aHelper, { now: () => T0 });
     const { priceMinor: _hidden, ...job } = (await db.rows('jobs').get(jobId))!;
