@@ -42,7 +42,7 @@ export function OfficePage({
         </IonToolbar>
       </IonHeader>
       <IonContent>
-        <main className="pp-page">{children}</main>
+        <div className="pp-page">{children}</div>
       </IonContent>
     </IonPage>
   );

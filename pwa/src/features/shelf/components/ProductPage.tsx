@@ -61,7 +61,7 @@ export default function ProductPage() {
         </IonToolbar>
       </IonHeader>
       <IonContent>
-        <main className="pp-page">
+        <div className="pp-page">
           {product === undefined ? (
             <div className="pp-loading" aria-busy="true" />
           ) : product === null ? (
@@ -76,7 +76,7 @@ export default function ProductPage() {
           ) : (
             <ProductDetail product={product} />
           )}
-        </main>
+        </div>
       </IonContent>
     </IonPage>
   );
