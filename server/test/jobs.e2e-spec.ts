@@ -214,8 +214,9 @@ describe('customers, vehicles and jobs', () => {
     expect(own.status).toBe(200);
     expect(own.body).not.toHaveProperty('notes');
     const list = await http(app).get('/api/jobs').auth(customer.accessToken, bearer).expect(200);
-    expect(list.body.items.map((j: { id: string }) => j.id)).toEqual([jobId]);
-    expect(list.body.items[0]).not.toHaveProperty('notes');
+    const items = list.body.items as { id: string }[];
+    expect(items.map((j) => j.id)).toEqual([jobId]);
+    expect(items[0]).not.toHaveProperty('notes');
 
     const staff = await http(app).get(`/api/jobs/${jobId}`).auth(owner.accessToken, bearer);
     expect(staff.body.notes).toBe('Gate code 4471; dog in the yard');
