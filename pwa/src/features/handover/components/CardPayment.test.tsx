@@ -121,6 +121,49 @@ describe('card payment at handover', () => {
     expect(await screen.findByRole('img', { name: 'QR code of the payment link' })).toBeTruthy();
   });
 
+  it('asks for a deposit of the amount given, and shows only the deposit request', async () => {
+    // An open balance link is not the deposit's: the deposit card still offers to ask.
+    render(
+      <CardPayment
+        data={dataWith([card({ checkoutUrl: LINK })])}
+        currency="USD"
+        kind="deposit"
+        amountMinor={12_500}
+      />,
+    );
+    await act(async () => {
+      fireEvent.click(screen.getByRole('button', { name: 'Ask for the deposit by card' }));
+      await Promise.resolve();
+    });
+    expect(requestCardPayment).toHaveBeenCalledTimes(1);
+    expect(requestCardPayment.mock.calls[0]![0]).toMatchObject({
+      jobId: JOB,
+      kind: 'deposit',
+      amountMinor: 12_500,
+    });
+    cleanup();
+    status.online = false;
+    render(
+      <CardPayment
+        data={dataWith([card({ kind: 'deposit', amountMinor: 12_500 })])}
+        currency="USD"
+        kind="deposit"
+        amountMinor={12_500}
+      />,
+    );
+    expect(screen.getByRole('status').textContent).toMatch(
+      /Card deposit of \$125\.00 asked for\. No signal now/,
+    );
+  });
+
+  it('cannot ask while the amount typed beside it is not one', () => {
+    render(<CardPayment data={dataWith([])} currency="USD" kind="deposit" amountMinor={null} />);
+    const ask = screen.getByRole('button', { name: 'Ask for the deposit by card' });
+    expect((ask as HTMLButtonElement).disabled).toBe(true);
+    fireEvent.click(ask);
+    expect(requestCardPayment).not.toHaveBeenCalled();
+  });
+
   it("gives the server's reason when it refused the request", () => {
     status.rejected = [
       {

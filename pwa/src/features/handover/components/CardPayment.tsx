@@ -13,11 +13,27 @@ import { cardRequestState } from '../model/cardRequest';
  * makes the payment link; once it has synced back, this phone draws it as a QR code itself
  * (no network) and shows the link to send.
  */
-export function CardPayment({ data, currency }: { data: HandoverData; currency: string }) {
+export function CardPayment({
+  data,
+  currency,
+  kind = 'balance',
+  amountMinor,
+}: {
+  /** The job and its payments (the handover's data, or any screen's with the same two). */
+  data: Pick<HandoverData, 'payments'> & { job: Pick<HandoverData['job'], 'id'> };
+  currency: string;
+  /** What is asked for: the balance (the handover's) or a deposit (on a booked job). */
+  kind?: 'deposit' | 'balance';
+  /**
+   * The amount to ask for; left out, the server works it out (the amount due, or the quote's
+   * deposit). Null: the amount typed beside this is not one, so nothing can be asked yet.
+   */
+  amountMinor?: number | null;
+}) {
   const recorder = useChanges();
   const sync = useSync();
   const online = sync?.status.online ?? navigator.onLine;
-  const state = cardRequestState(data.payments);
+  const state = cardRequestState(data.payments, kind);
   const url = state.phase === 'link' || state.phase === 'declined' ? state.url : null;
   const qr = useQrCode(url);
   const [busy, setBusy] = useState(false);
@@ -27,7 +43,7 @@ export function CardPayment({ data, currency }: { data: HandoverData; currency: 
   const asking = useRef(false);
 
   async function ask() {
-    if (asking.current) return;
+    if (asking.current || amountMinor === null) return;
     asking.current = true;
     setBusy(true);
     try {
@@ -37,7 +53,8 @@ export function CardPayment({ data, currency }: { data: HandoverData; currency: 
         id: crypto.randomUUID(),
         opId: crypto.randomUUID(),
         jobId: data.job.id,
-        kind: 'balance',
+        kind,
+        ...(amountMinor === undefined ? {} : { amountMinor }),
       });
     } finally {
       asking.current = false;
@@ -58,7 +75,12 @@ export function CardPayment({ data, currency }: { data: HandoverData; currency: 
   const amount = (minor: number) => formatMinor(minor, currency);
   // A request the server refused for good (its local payment is gone again): say why.
   const refused = sync?.status.rejected
-    .filter((r) => r.name === 'payment.request' && r.args.jobId === data.job.id)
+    .filter(
+      (r) =>
+        r.name === 'payment.request' &&
+        r.args.jobId === data.job.id &&
+        (r.args.kind ?? 'balance') === kind,
+    )
     .at(-1);
 
   if (state.phase === 'none') {
@@ -76,15 +98,20 @@ export function CardPayment({ data, currency }: { data: HandoverData; currency: 
             ? ''
             : ' No signal now? Ask anyway: the request waits on this phone and is sent when there is signal.'}
         </p>
-        <button type="button" className="pp-button" disabled={busy} onClick={() => void ask()}>
-          Ask for a card payment
+        <button
+          type="button"
+          className="pp-button"
+          disabled={busy || amountMinor === null}
+          onClick={() => void ask()}
+        >
+          {kind === 'deposit' ? 'Ask for the deposit by card' : 'Ask for a card payment'}
         </button>
       </>
     );
   }
 
   if (state.phase === 'queued') {
-    const what = `Card payment of ${amount(state.payment.amountMinor)} asked for.`;
+    const what = `${kind === 'deposit' ? 'Card deposit' : 'Card payment'} of ${amount(state.payment.amountMinor)} asked for.`;
     return (
       <Notice tone="wait">
         {!online
@@ -144,7 +171,7 @@ export function CardPayment({ data, currency }: { data: HandoverData; currency: 
         <button
           type="button"
           className="pp-small-button"
-          disabled={busy}
+          disabled={busy || amountMinor === null}
           onClick={() => void ask()}
         >
           Make a new link
