@@ -265,7 +265,7 @@ async function main(): Promise<void> {
     console.log(
       loaded
         ? `Loaded the demo business "${demoBusiness.name}"`
-        : 'Database already has data; demo not loaded',
+        : 'Database already has data; demo not loaded (scripts/db reset empties it)',
     );
   } finally {
     await app.close();
