@@ -22,7 +22,8 @@ export function sheet(page: Page, title: string | RegExp): Locator {
 export async function openJobFromList(page: Page, address: string): Promise<void> {
   await page.locator('ion-tab-bar').getByText('Jobs', { exact: true }).click();
   await page.waitForURL(`${baseUrl}/jobs`);
-  await page.locator('a.pp-job-card').filter({ hasText: address }).first().click();
+  // The Jobs tab's card: Today's list of the same job stays in the page, hidden.
+  await page.locator('a.pp-job-card:visible').filter({ hasText: address }).first().click();
   await page.waitForURL(/\/jobs\/[0-9a-f-]{36}$/);
   await page.getByRole('navigation', { name: 'Stages of this job' }).waitFor();
 }

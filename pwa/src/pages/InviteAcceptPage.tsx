@@ -25,7 +25,7 @@ export default function InviteAcceptPage() {
   return (
     <IonPage>
       <IonContent>
-        <main className="pp-auth">
+        <div className="pp-auth">
           <BrandHeader
             title="Join the team"
             lead="You were invited to help on jobs. Set your name and a password to start."
@@ -41,7 +41,7 @@ export default function InviteAcceptPage() {
             pending={accept.pending}
             error={accept.error ? authErrorMessage('accept-invite', accept.error) : null}
           />
-        </main>
+        </div>
       </IonContent>
     </IonPage>
   );

@@ -11,7 +11,7 @@ export default function PaidPage() {
   return (
     <IonPage>
       <IonContent>
-        <main className="pp-auth">
+        <div className="pp-auth">
           <BrandHeader title="Thank you: payment made" />
           <Notice tone="done">
             Your card payment has gone through. There is nothing more to do here.
@@ -21,7 +21,7 @@ export default function PaidPage() {
             detailer&apos;s phone shows the payment as soon as it next connects. You can close this
             page.
           </p>
-        </main>
+        </div>
       </IonContent>
     </IonPage>
   );

@@ -27,9 +27,9 @@ export default function SettingsPage() {
         </IonToolbar>
       </IonHeader>
       <IonContent>
-        <main className="pp-page">
+        <div className="pp-page">
           {role === 'owner' ? <SettingsScreen /> : <HelperUnitsScreen />}
-        </main>
+        </div>
       </IonContent>
     </IonPage>
   );

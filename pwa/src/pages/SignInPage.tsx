@@ -11,7 +11,7 @@ export default function SignInPage() {
   return (
     <IonPage>
       <IonContent>
-        <main className="pp-auth">
+        <div className="pp-auth">
           <BrandHeader
             title="Sign in"
             lead="Today's cars, panels and timers — with or without signal."
@@ -27,7 +27,7 @@ export default function SignInPage() {
               Start a new business
             </Link>
           </p>
-        </main>
+        </div>
       </IonContent>
     </IonPage>
   );

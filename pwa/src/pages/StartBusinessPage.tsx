@@ -11,7 +11,7 @@ export default function StartBusinessPage() {
   return (
     <IonPage>
       <IonContent>
-        <main className="pp-auth">
+        <div className="pp-auth">
           <BrandHeader
             title="Start a new business"
             lead="You will be its owner. You can invite helpers afterwards."
@@ -27,7 +27,7 @@ export default function StartBusinessPage() {
               Sign in
             </Link>
           </p>
-        </main>
+        </div>
       </IonContent>
     </IonPage>
   );

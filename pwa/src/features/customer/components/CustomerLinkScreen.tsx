@@ -45,7 +45,7 @@ export function CustomerLinkScreen() {
         </IonToolbar>
       </IonHeader>
       <IonContent>
-        <main className="pp-page">
+        <div className="pp-page">
           {error ? (
             <>
               <Notice tone="stop">{linkProblemWords(error)}</Notice>
@@ -58,7 +58,7 @@ export function CustomerLinkScreen() {
               Opening your page…
             </p>
           )}
-        </main>
+        </div>
       </IonContent>
     </IonPage>
   );

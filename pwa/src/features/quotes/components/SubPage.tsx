@@ -37,7 +37,7 @@ export function SubPage({
         </IonToolbar>
       </IonHeader>
       <IonContent>
-        <main className="pp-page">{children}</main>
+        <div className="pp-page">{children}</div>
       </IonContent>
     </IonPage>
   );

@@ -28,7 +28,7 @@ export function TabPage({ title, children }: { title: string; children: ReactNod
         </IonToolbar>
       </IonHeader>
       <IonContent>
-        <main className="pp-page">{children}</main>
+        <div className="pp-page">{children}</div>
       </IonContent>
     </IonPage>
   );
