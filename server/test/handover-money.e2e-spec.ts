@@ -297,6 +297,11 @@ describe('handover and money', () => {
       201,
     );
     expect(sessionsFor(opId)).toHaveLength(1);
+    // Paid or turned back, the customer lands on our page for this job, never the sign-in.
+    expect(sessionsFor(opId)[0]).toMatchObject({
+      success_url: expect.stringMatching(new RegExp(`/paid\\?job=${jobId}$`)) as unknown,
+      cancel_url: expect.stringMatching(new RegExp(`/paid\\?job=${jobId}&cancelled=1$`)) as unknown,
+    });
     expect(w.stripe.requests.filter((r) => r.idempotencyKey === opId)).toHaveLength(2);
     // Our answer is lost: the device sends the same mutation again (another device: another id).
     const again = await request(owner, jobId, { id: randomUUID(), opId, kind: 'balance' }).expect(

@@ -262,7 +262,7 @@ export class PaymentsService implements OnModuleInit {
         },
       ],
       success_url: `${this.publicUrl}/paid?job=${job.id}`,
-      cancel_url: `${this.publicUrl}/`,
+      cancel_url: `${this.publicUrl}/paid?job=${job.id}&cancelled=1`,
       client_reference_id: a.opId,
       ...(customer?.email ? { customer_email: customer.email } : {}),
       metadata,
