@@ -54,6 +54,10 @@ export default defineConfig({
         // reload. Updates still wait (no skipWaiting) until the user accepts.
         clientsClaim: true,
         skipWaiting: false,
+        // What tapping a timer alarm's notification does (public/sw-alarms.js, plain and
+        // small). Imported scripts are stored with the worker, so it works offline; a change to
+        // it changes the precache revision, hence the worker, and goes through the update prompt.
+        importScripts: ['sw-alarms.js'],
       },
     }),
   ],

@@ -15,6 +15,7 @@ import {
   vibrateAlarm,
   vibrationPattern,
 } from '../model/alarmSound';
+import { alarmNotificationData } from '../model/alarmClick';
 import { notifyPermission, showAlarmNotification } from '../model/notify';
 import { KIND_WORDS, kindOf } from '../model/timerWords';
 
@@ -93,6 +94,7 @@ export function useAlarmRunner(
           [t.label, job].filter(Boolean).join(' — '),
           `panelpass-timer-${t.id}`,
           vibrationPattern(kind),
+          alarmNotificationData(t.id, t.jobId),
         );
       }
       if (plan.ring.length || notified.length) {
