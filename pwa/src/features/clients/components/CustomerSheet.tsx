@@ -4,6 +4,7 @@ import { Notice } from '../../../components/Notice';
 import { TextField } from '../../../components/TextField';
 import { useChanges } from '../../../sync/useChanges';
 import { NoteField } from '../../prep/kit/fields';
+import { parseDecimal } from '../../prep/kit/numbers';
 import { Sheet } from '../../prep/kit/Sheet';
 import { looksLikeEmail } from '../model/clients';
 
@@ -12,6 +13,9 @@ interface Draft {
   phone: string;
   email: string;
   address: string;
+  /** The map position for drive times, as typed (decimal degrees); both or neither. */
+  lat: string;
+  lng: string;
   notes: string;
 }
 
@@ -22,6 +26,8 @@ const draftOf = (c: CustomerRow | null): Draft => ({
   phone: c?.phone ?? '',
   email: c?.email ?? '',
   address: c?.address ?? '',
+  lat: c?.lat == null ? '' : String(c.lat),
+  lng: c?.lng == null ? '' : String(c.lng),
   notes: c?.notes ?? '',
 });
 
@@ -44,10 +50,29 @@ export function readCustomer(
   if (phone.length > 40) problems.phone = 'At most 40 characters.';
   if (address.length > 300) problems.address = 'At most 300 characters.';
   if (d.notes.length > 4000) problems.notes = 'At most 4000 characters.';
+  const lat = d.lat.trim() ? parseDecimal(d.lat) : null;
+  const lng = d.lng.trim() ? parseDecimal(d.lng) : null;
+  if (d.lat.trim() && (lat === null || lat < -90 || lat > 90)) {
+    problems.lat = 'A latitude is a number of degrees from -90 to 90, e.g. 51.5072.';
+  }
+  if (d.lng.trim() && (lng === null || lng < -180 || lng > 180)) {
+    problems.lng = 'A longitude is a number of degrees from -180 to 180, e.g. -0.1276.';
+  }
+  if (!problems.lat && !problems.lng && (lat === null) !== (lng === null)) {
+    problems[lat === null ? 'lat' : 'lng'] = 'Give both latitude and longitude, or neither.';
+  }
   if (Object.keys(problems).length) return { ok: false, problems };
   return {
     ok: true,
-    fields: { name, email: email || null, phone: phone || null, address, notes: d.notes.trim() },
+    fields: {
+      name,
+      email: email || null,
+      phone: phone || null,
+      address,
+      lat,
+      lng,
+      notes: d.notes.trim(),
+    },
   };
 }
 
@@ -108,7 +133,7 @@ export function CustomerSheet({
     } else {
       const update: CommandArgs['customer.update'] = { id: customer.id };
       let any = false;
-      for (const key of ['name', 'email', 'phone', 'address', 'notes'] as const) {
+      for (const key of ['name', 'email', 'phone', 'address', 'lat', 'lng', 'notes'] as const) {
         if (read.fields[key] !== customer[key]) {
           (update as Record<string, unknown>)[key] = read.fields[key];
           any = true;
@@ -142,6 +167,11 @@ export function CustomerSheet({
       {field('phone', 'Phone', { inputMode: 'tel', type: 'tel' })}
       {field('email', 'E-mail', { inputMode: 'email', type: 'email' })}
       {field('address', 'Address')}
+      {field('lat', 'Latitude', {
+        inputMode: 'decimal',
+        hint: 'Map position for drive times (optional), in decimal degrees; or tap “Use this spot” on a job at their address.',
+      })}
+      {field('lng', 'Longitude', { inputMode: 'decimal' })}
       <NoteField
         label="Notes"
         value={draft.notes}
