@@ -69,4 +69,12 @@ export const SCHEMA_VERSIONS: readonly SchemaVersion[] = [
       timers: 'id, jobId, subjectId, endsAt',
     },
   },
+  {
+    // Images made on another phone, downloaded when shown: their size and last use, so the
+    // least recently shown copies go first once they pass the cap (db/blobCache.ts).
+    version: 3,
+    stores: {
+      blob_cache: 'sha256, lastUsedAt',
+    },
+  },
 ];

@@ -1,7 +1,7 @@
 import { IonButton, IonContent, IonHeader, IonModal, IonToolbar } from '@ionic/react';
 import { useState } from 'react';
 import type { PhotoRow } from '@panelpass/shared';
-import { useImageUrl } from './usePhotos';
+import { useImage } from './usePhotos';
 import './photos.css';
 
 const KIND_WORDS: Record<string, string> = {
@@ -19,19 +19,30 @@ export function photoName(photo: PhotoRow): string {
   return `${KIND_WORDS[photo.kind] ?? 'Photo'} photo${time}${photo.caption ? `: ${photo.caption}` : ''}`;
 }
 
-/** One photo as kept on the phone, or words saying it is on the server only. */
+/** Why a photo cannot be shown now, in words. */
+export const IMAGE_WORDS = {
+  offline: 'Photo is on the server; it will show when there is signal',
+  missing: 'Photo is not on the server',
+  error: 'Photo could not be loaded; it will be tried again',
+} as const;
+
+/**
+ * One photo: this phone's copy, or downloaded from the server when another phone took it;
+ * words in its place while it cannot be shown.
+ */
 export function PhotoImage({ photo, className }: { photo: PhotoRow; className?: string }) {
-  const url = useImageUrl(photo.sha256);
-  if (url === undefined)
+  const { status, url } = useImage(photo.sha256);
+  if (status === 'loading')
     return <span className={`${className ?? ''} pp-photo--loading`} aria-hidden="true" />;
-  if (url === null) {
+  if (status !== 'ready' || !url) {
+    const words = status === 'ready' ? IMAGE_WORDS.error : IMAGE_WORDS[status];
     return (
       <span
         className={`${className ?? ''} pp-photo--missing`}
         role="img"
-        aria-label={photoName(photo)}
+        aria-label={`${photoName(photo)}. ${words}`}
       >
-        On the server
+        {words}
       </span>
     );
   }

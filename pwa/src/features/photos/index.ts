@@ -7,9 +7,12 @@
  */
 export { PhotoCapture, type PhotoCaptureProps } from './PhotoCapture';
 export { PhotoPicker } from './PhotoPicker';
-export { PhotoImage, PhotoStrip, photoName } from './PhotoStrip';
+export { IMAGE_WORDS, PhotoImage, PhotoStrip, photoName } from './PhotoStrip';
 export {
+  useImage,
   useImageUrl,
+  type ImageStatus,
+  type ImageView,
   useJobPhotos,
   selectPhotos,
   type PhotoFilter,

@@ -1,7 +1,11 @@
 import { useLiveQuery } from 'dexie-react-hooks';
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useRef, useState, useSyncExternalStore } from 'react';
 import type { PhotoRow } from '@panelpass/shared';
+import { isApiError, isNetworkError } from '../../api/errors';
+import { apiClient, sessionStore } from '../../app/services';
+import { fetchImage, touch, type BlobDownloader, type ImageBytes } from '../../db/blobCache';
 import { useLocalDb } from '../../db/hooks';
+import { createImageDownloader } from './downloadImage';
 
 export type PhotoKind = 'before' | 'after' | 'damage' | 'other';
 
@@ -41,32 +45,130 @@ export function selectPhotos(rows: readonly PhotoRow[], filter: PhotoFilter): Ph
 }
 
 /**
- * An object URL for an image kept on this phone (photo or signature, by SHA-256): undefined
- * while looking, null when the phone does not hold it (taken on another phone: it is on the
- * server). The URL is freed when no longer shown.
+ * Where an image stands on this phone: `loading` (looking or downloading), `ready` (url),
+ * `offline` (on the server, no signal now), `missing` (the server has no such image for this
+ * user), `error` (any other failure, e.g. bytes that did not match the fingerprint).
  */
-export function useImageUrl(sha256: string | null | undefined): string | null | undefined {
+export type ImageStatus = 'loading' | 'ready' | 'offline' | 'missing' | 'error';
+
+export interface ImageView {
+  status: ImageStatus;
+  /** An object URL while `ready`, freed when no longer shown; null otherwise. */
+  url: string | null;
+}
+
+type Fetched = { sha256: string } & (
+  { bytes: ImageBytes; status: 'ready' } | { bytes: null; status: 'offline' | 'missing' | 'error' }
+);
+
+let appDownloader: BlobDownloader | null = null;
+function downloader(): BlobDownloader {
+  appDownloader ??= createImageDownloader({ api: apiClient, sessionStore });
+  return appDownloader;
+}
+
+function subscribeOnline(changed: () => void): () => void {
+  window.addEventListener('online', changed);
+  window.addEventListener('offline', changed);
+  return () => {
+    window.removeEventListener('online', changed);
+    window.removeEventListener('offline', changed);
+  };
+}
+
+/** Whether the phone says it has signal (a download is tried again when it comes back). */
+function useOnline(): boolean {
+  return useSyncExternalStore(
+    subscribeOnline,
+    () => navigator.onLine,
+    () => true,
+  );
+}
+
+/** What a failed download means for the screen. */
+export function imageFailure(error: unknown): 'offline' | 'missing' | 'error' {
+  if (isNetworkError(error)) return 'offline';
+  if (isApiError(error, 404)) return 'missing';
+  return 'error';
+}
+
+/**
+ * A photo or signature image by its SHA-256: this phone's copy when it has one (made here or
+ * downloaded before), else — with signal — downloaded from the server, checked against the
+ * SHA-256 and kept as a downloaded copy (db/blobCache.ts). Screens showing the same image
+ * at once share one download; with no signal it says `offline` and tries again once the
+ * signal is back.
+ */
+export function useImage(sha256: string | null | undefined): ImageView {
   const db = useLocalDb();
+  const online = useOnline();
   const stored = useLiveQuery(async () => {
     if (!db || !sha256) return null;
     const blob = await db.blobs.get(sha256);
-    return blob ? { data: blob.data, mime: blob.mime } : null;
+    return blob ? { data: blob.data, mime: blob.mime, state: blob.state } : null;
   }, [db, sha256]);
-  const [url, setUrl] = useState<string | null | undefined>(undefined);
+  const [fetched, setFetched] = useState<Fetched | null>(null);
+  const absent = stored === null;
+
+  useEffect(() => {
+    if (!db || !sha256 || !absent) return;
+    if (!online) {
+      setFetched({ sha256, bytes: null, status: 'offline' });
+      return;
+    }
+    let live = true;
+    setFetched(null);
+    fetchImage(db, sha256, downloader()).then(
+      (bytes) => {
+        if (live) setFetched({ sha256, bytes, status: 'ready' });
+      },
+      (error: unknown) => {
+        if (live) setFetched({ sha256, bytes: null, status: imageFailure(error) });
+      },
+    );
+    return () => {
+      live = false;
+    };
+  }, [db, sha256, absent, online]);
+
+  // A downloaded copy shown again is the last to be evicted.
+  const storedState = stored?.state;
+  useEffect(() => {
+    if (db && sha256 && (storedState as string) === 'downloaded') void touch(db, sha256);
+  }, [db, sha256, storedState]);
+
+  const mine = fetched?.sha256 === sha256 ? fetched : null;
+  const source: ImageBytes | null = stored ?? mine?.bytes ?? null;
+  const [url, setUrl] = useState<string | null>(null);
   // A re-run of the query (an upload changed the blob's state) brings the same bytes: make
   // a new URL only when the image itself changes.
-  const latest = useRef(stored);
-  latest.current = stored;
-  const key = stored ? `${sha256}` : stored;
+  const latest = useRef(source);
+  latest.current = source;
+  const key = source ? sha256 : null;
   useEffect(() => {
     const current = latest.current;
     if (!current) {
-      setUrl(current);
+      setUrl(null);
       return;
     }
     const made = URL.createObjectURL(new Blob([current.data], { type: current.mime }));
     setUrl(made);
     return () => URL.revokeObjectURL(made);
   }, [key]);
+
+  if (!sha256) return { status: 'missing', url: null };
+  if (source) return url ? { status: 'ready', url } : { status: 'loading', url: null };
+  if (stored === undefined || !mine) return { status: 'loading', url: null };
+  return { status: mine.status === 'ready' ? 'loading' : mine.status, url: null };
+}
+
+/**
+ * An object URL for an image (photo or signature, by SHA-256), downloaded from the server
+ * when another phone made it: undefined while looking or downloading, null when it cannot be
+ * shown now (no signal, not on the server). See useImage for the reason.
+ */
+export function useImageUrl(sha256: string | null | undefined): string | null | undefined {
+  const { status, url } = useImage(sha256);
+  if (status === 'loading') return undefined;
   return url;
 }
