@@ -63,14 +63,19 @@
     return moved || self.clients.openWindow(url);
   }
 
+  // A tap on the notification or one of its buttons: close it, then open what it is about.
+  function tap(notification, action) {
+    notification.close();
+    return open(notification.data, action);
+  }
+
   self.__panelpassAlarm = { clickTarget: clickTarget, pickClient: pickClient };
   // For the browser test, which cannot dispatch a notificationclick itself.
-  self.__panelpassOpen = open;
+  self.__panelpassTap = tap;
 
   if (typeof self.addEventListener === 'function') {
     self.addEventListener('notificationclick', function (event) {
-      event.notification.close();
-      event.waitUntil(open(event.notification.data, event.action));
+      event.waitUntil(tap(event.notification, event.action));
     });
   }
 })(self);

@@ -30,7 +30,10 @@ function loadWorkerRules(clients: unknown = {}) {
       pickClient: typeof pickClient;
     },
     listeners,
-    open: fakeSelf.__panelpassOpen as (data: unknown, action: string) => Promise<unknown>,
+    tap: fakeSelf.__panelpassTap as (
+      n: { data: unknown; close(): void },
+      action: string,
+    ) => Promise<unknown>,
   };
 }
 
@@ -142,28 +145,31 @@ describe('alarm notification tap (service worker file mirrors the module)', () =
 
 describe('alarm notification tap (what the worker does)', () => {
   const data = alarmNotificationData('t1', job);
+  const closed: string[] = [];
+  const notification = { data, close: () => closed.push('closed') };
 
   it('no window open: opens a new one on the job', async () => {
     const f = fakeClients([]);
-    await loadWorkerRules(f.clients).open(data, '');
+    await loadWorkerRules(f.clients).tap(notification, '');
     expect(f.done).toEqual([`openWindow ${origin}/jobs/${job}`]);
+    expect(closed).toEqual(['closed']);
   });
 
   it('a window open elsewhere in the app: brings it forward and moves it to the job', async () => {
     const f = fakeClients([`${origin}/`]);
-    await loadWorkerRules(f.clients).open(data, OPEN_JOB_ACTION);
+    await loadWorkerRules(f.clients).tap(notification, OPEN_JOB_ACTION);
     expect(f.done).toEqual([`focus ${origin}/`, `navigate ${origin}/ -> ${origin}/jobs/${job}`]);
   });
 
   it('a window already on the job: only brings it forward', async () => {
     const f = fakeClients([`${origin}/jobs/${job}`]);
-    await loadWorkerRules(f.clients).open(data, '');
+    await loadWorkerRules(f.clients).tap(notification, '');
     expect(f.done).toEqual([`focus ${origin}/jobs/${job}`]);
   });
 
   it('a window the worker cannot move: opens a new one', async () => {
     const f = fakeClients([`${origin}/`], false);
-    await loadWorkerRules(f.clients).open(data, '');
+    await loadWorkerRules(f.clients).tap(notification, '');
     expect(f.done.at(-1)).toBe(`openWindow ${origin}/jobs/${job}`);
   });
 });
