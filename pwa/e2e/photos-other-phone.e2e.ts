@@ -74,7 +74,7 @@ async function photoFromAnotherPhone(owner: ApiSession): Promise<Made> {
   const put = await fetch(`${baseUrl}/api/blobs/${sha256}`, {
     method: 'PUT',
     headers: { 'content-type': 'image/png', authorization: `Bearer ${token}` },
-    body: png,
+    body: new Uint8Array(png),
   });
   expect([200, 201]).toContain(put.status);
   await api('/api/photos', {
