@@ -110,8 +110,12 @@ export function useImage(sha256: string | null | undefined): ImageView {
   const [fetched, setFetched] = useState<Fetched | null>(null);
   const absent = stored === null;
 
+  // Bytes already downloaded by this screen are shown from memory even if the copy was
+  // evicted meanwhile: never download the same image again in a loop.
+  const held = useRef<string | null>(null);
+
   useEffect(() => {
-    if (!db || !sha256 || !absent) return;
+    if (!db || !sha256 || !absent || held.current === sha256) return;
     if (!online) {
       setFetched({ sha256, bytes: null, status: 'offline' });
       return;
@@ -120,7 +124,9 @@ export function useImage(sha256: string | null | undefined): ImageView {
     setFetched(null);
     fetchImage(db, sha256, downloader()).then(
       (bytes) => {
-        if (live) setFetched({ sha256, bytes, status: 'ready' });
+        if (!live) return;
+        held.current = sha256;
+        setFetched({ sha256, bytes, status: 'ready' });
       },
       (error: unknown) => {
         if (live) setFetched({ sha256, bytes: null, status: imageFailure(error) });
@@ -156,7 +162,8 @@ export function useImage(sha256: string | null | undefined): ImageView {
     return () => URL.revokeObjectURL(made);
   }, [key]);
 
-  if (!sha256) return { status: 'missing', url: null };
+  // Outside the signed-in shell there is no phone database to look in.
+  if (!sha256 || !db) return { status: 'missing', url: null };
   if (source) return url ? { status: 'ready', url } : { status: 'loading', url: null };
   if (stored === undefined || !mine) return { status: 'loading', url: null };
   return { status: mine.status === 'ready' ? 'loading' : mine.status, url: null };
