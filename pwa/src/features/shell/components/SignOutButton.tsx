@@ -68,9 +68,14 @@ export function SignOutButton() {
   }
 
   return (
-    <IonButton className="pp-signout" fill="clear" onClick={confirm}>
-      <IonIcon slot="start" icon={logOutOutline} aria-hidden="true" />
-      Sign out
+    <IonButton
+      className="pp-signout pp-header__icon"
+      fill="clear"
+      aria-label="Sign out"
+      title="Sign out"
+      onClick={confirm}
+    >
+      <IonIcon slot="icon-only" icon={logOutOutline} aria-hidden="true" />
     </IonButton>
   );
 }

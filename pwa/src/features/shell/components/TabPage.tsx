@@ -5,9 +5,10 @@ import { SignOutButton } from './SignOutButton';
 import { SyncBadge } from './SyncBadge';
 
 /**
- * One tab's page: its title, the sync badge, Settings and sign-out in the header, the work below. The
- * header is our own wrapping row rather than IonTitle/IonButtons, so with large system text
- * the title moves above the badge instead of being squeezed out.
+ * One tab's page: its title, the sync badge, Settings and sign-out (icons with their names as
+ * labels, so the row fits a phone beside a long badge) in the header, the work below. The header
+ * is our own wrapping row rather than IonTitle/IonButtons, so with large system text the title
+ * moves above the badge instead of being squeezed out.
  */
 export function TabPage({ title, children }: { title: string; children: ReactNode }) {
   return (
@@ -18,9 +19,14 @@ export function TabPage({ title, children }: { title: string; children: ReactNod
             <h1 className="pp-header__title">{title}</h1>
             <div className="pp-header__tools">
               <SyncBadge />
-              <IonButton className="pp-signout" fill="clear" routerLink="/settings">
-                <IonIcon slot="start" icon={settingsOutline} aria-hidden="true" />
-                Settings
+              <IonButton
+                className="pp-signout pp-header__icon"
+                fill="clear"
+                routerLink="/settings"
+                aria-label="Settings"
+                title="Settings"
+              >
+                <IonIcon slot="icon-only" icon={settingsOutline} aria-hidden="true" />
               </IonButton>
               <SignOutButton />
             </div>
