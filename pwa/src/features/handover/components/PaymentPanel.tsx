@@ -1,5 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
-import { currencyDigits, formatMinor } from '@panelpass/shared';
+import { formatMinor } from '@panelpass/shared';
 import { useId, useState } from 'react';
 import { apiClient } from '../../../app/services';
 import { Notice } from '../../../components/Notice';
@@ -7,7 +7,8 @@ import { useChanges } from '../../../sync/useChanges';
 import { useSession } from '../../auth/hooks/useSession';
 import { businessQuery } from '../../settings/api/businessApi';
 import type { HandoverData } from '../hooks/useHandover';
-import { amountDue, amountText, parseAmount } from '../model/handoverSummary';
+import { formatMoney, moneyOrNull } from '../../settings/model/typedNumbers';
+import { amountDue } from '../model/handoverSummary';
 import { CardPayment } from './CardPayment';
 
 /** The business's currency: from a payment on this job, else the owner's profile. */
@@ -33,14 +34,13 @@ export function PaymentPanel({ data }: { data: HandoverData }) {
   const ids = useId();
   const recorder = useChanges();
   const currency = useCurrency(data);
-  const digits = currencyDigits(currency);
   const due = amountDue(data.job.priceMinor, data.payments, currency);
   const [amount, setAmount] = useState<string | null>(null);
   const [method, setMethod] = useState<'cash' | 'cheque'>('cash');
   const [saved, setSaved] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
-  const typed = amount ?? (due ? amountText(due.dueMinor, digits) : '');
-  const amountMinor = parseAmount(typed, digits);
+  const typed = amount ?? (due ? formatMoney(due.dueMinor, currency) : '');
+  const amountMinor = moneyOrNull(typed, currency);
   const amountProblem =
     amountMinor === null
       ? 'Type the amount taken (a number).'

@@ -8,7 +8,7 @@ import type {
 import { describe, expect, it } from 'vitest';
 import { recordHash } from '../../../db/images';
 import { JOB, panelsFor } from '../../walkaround/model/testRows';
-import { amountDue, amountText, buildAcceptanceRecord, parseAmount } from './handoverSummary';
+import { amountDue, buildAcceptanceRecord } from './handoverSummary';
 
 const panels = panelsFor('sedan');
 const [bonnet, roof] = [panels[0]!, panels[panels.length - 1]!];
@@ -97,18 +97,5 @@ describe('amountDue', () => {
     );
     expect(amountDue(100, [], 'USD')?.words).toBe('$1.00 due.');
     expect(amountDue(undefined, [], 'USD')).toBeNull();
-  });
-});
-
-describe('typed amounts', () => {
-  it('reads money as minor units and refuses anything else', () => {
-    expect(parseAmount('45')).toBe(4500);
-    expect(parseAmount('1,045.5')).toBe(104_550);
-    expect(parseAmount('0.05')).toBe(5);
-    expect(parseAmount('4.555')).toBeNull();
-    expect(parseAmount('-3')).toBeNull();
-    expect(parseAmount('')).toBeNull();
-    expect(amountText(104_550)).toBe('1045.50');
-    expect(amountText(5)).toBe('0.05');
   });
 });

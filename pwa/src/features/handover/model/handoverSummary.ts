@@ -131,20 +131,3 @@ export function amountDue(
     settled: false,
   };
 }
-
-/** Typed money ("45", "45.5", "1,045.50") as minor units; null when it is not an amount. */
-export function parseAmount(text: string, digits = 2): number | null {
-  const clean = text.replace(/[\s,]/g, '');
-  if (!/^\d+(\.\d*)?$/.test(clean)) return null;
-  const [whole = '0', frac = ''] = clean.split('.');
-  if (frac.length > digits) return null;
-  const value = Number(whole) * 10 ** digits + Number(frac.padEnd(digits, '0') || '0');
-  return Number.isSafeInteger(value) ? value : null;
-}
-
-/** Minor units as a typed amount ("45.50"), for the amount field's starting value. */
-export function amountText(minor: number, digits = 2): string {
-  if (digits === 0) return String(minor);
-  const s = String(minor).padStart(digits + 1, '0');
-  return `${s.slice(0, -digits)}.${s.slice(-digits)}`;
-}

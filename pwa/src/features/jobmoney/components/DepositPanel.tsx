@@ -1,8 +1,8 @@
-import { currencyDigits, formatMinor } from '@panelpass/shared';
+import { formatMinor } from '@panelpass/shared';
 import { useId, useRef, useState } from 'react';
 import { Notice } from '../../../components/Notice';
 import { CardPayment } from '../../handover/components/CardPayment';
-import { amountText, parseAmount } from '../../handover/model/handoverSummary';
+import { formatMoney, moneyOrNull } from '../../settings/model/typedNumbers';
 import type { JobMoney } from '../hooks/useJobMoney';
 import { useRecordCash } from '../hooks/useRecordCash';
 import { AmountField } from './AmountField';
@@ -17,7 +17,6 @@ export function DepositPanel({ money }: { money: JobMoney }) {
   const ids = useId();
   const record = useRecordCash();
   const { job, payments, currency, due, depositSuggestion } = money;
-  const digits = currencyDigits(currency);
   const [typed, setTyped] = useState<string | null>(null);
   const [method, setMethod] = useState<'cash' | 'cheque'>('cash');
   const [saved, setSaved] = useState<string | null>(null);
@@ -27,8 +26,8 @@ export function DepositPanel({ money }: { money: JobMoney }) {
   const recording = useRef(false);
   if (!due) return null;
 
-  const text = typed ?? (depositSuggestion ? amountText(depositSuggestion, digits) : '');
-  const amountMinor = parseAmount(text, digits);
+  const text = typed ?? (depositSuggestion ? formatMoney(depositSuggestion, currency) : '');
+  const amountMinor = moneyOrNull(text, currency);
   const problem = paymentAmountProblem(amountMinor, due.dueMinor, currency);
   // An empty field nobody has typed in yet is not a mistake: it just waits for an amount.
   const shownProblem = typed === null && text === '' ? null : problem;

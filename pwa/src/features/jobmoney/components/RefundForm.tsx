@@ -1,10 +1,10 @@
 import { useIonAlert } from '@ionic/react';
-import { currencyDigits, formatMinor } from '@panelpass/shared';
+import { formatMinor } from '@panelpass/shared';
 import { useId, useRef, useState } from 'react';
 import { isApiError, isNetworkError } from '../../../api/errors';
 import { Notice } from '../../../components/Notice';
 import { useSync } from '../../../sync/context';
-import { amountText, parseAmount } from '../../handover/model/handoverSummary';
+import { formatMoney, moneyOrNull } from '../../settings/model/typedNumbers';
 import { useCardRefund } from '../hooks/useCardRefund';
 import { useRecordCash } from '../hooks/useRecordCash';
 import { refundAmountProblem, refusalWords, type PaymentLine } from '../model/jobMoney';
@@ -36,14 +36,13 @@ export function RefundForm({
   const [presentAlert] = useIonAlert();
   const cardRefund = useCardRefund();
   const record = useRecordCash();
-  const digits = currencyDigits(currency);
   const [typed, setTyped] = useState<string | null>(null);
   const [refused, setRefused] = useState<string | null>(null);
   const giving = useRef(false);
   const byCard = line.refundRoute === 'card';
 
-  const text = typed ?? amountText(line.refundableMinor, digits);
-  const amountMinor = parseAmount(text, digits);
+  const text = typed ?? formatMoney(line.refundableMinor, currency);
+  const amountMinor = moneyOrNull(text, currency);
   const problem = refundAmountProblem(amountMinor, line.refundableMinor, currency);
   const what = `${line.methodWords.toLowerCase()} ${line.kindWords.toLowerCase()}`;
   const cardProblem = cardRefund.error

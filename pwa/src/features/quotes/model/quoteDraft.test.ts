@@ -1,14 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { priceFromSettings, type PricingSettings } from '@panelpass/shared';
-import {
-  distanceFromBase,
-  draftOfQuote,
-  newDraft,
-  priceDraft,
-  readDraft,
-  readMoney,
-  readPercentBp,
-} from './quoteDraft';
+import { distanceFromBase, draftOfQuote, newDraft, priceDraft, readDraft } from './quoteDraft';
+import { moneyOrNull, parsePercentBp } from '../../settings/model/typedNumbers';
 
 // Invented demo settings.
 const settings: PricingSettings = {
@@ -57,16 +50,20 @@ describe('the quote form', () => {
   });
 
   it('reads money in the currency’s minor units and percentages as basis points, refusing the rest', () => {
-    expect(readMoney('25', 'USD')).toBe(2_500);
-    expect(readMoney('25.5', 'USD')).toBe(2_550);
-    expect(readMoney('0,75', 'EUR')).toBe(75);
-    expect(readMoney('25.555', 'USD')).toBeNull();
-    expect(readMoney('1200', 'JPY')).toBe(1_200);
-    expect(readMoney('-3', 'USD')).toBeNull();
-    expect(readPercentBp('12.5')).toBe(1_250);
-    expect(readPercentBp('100')).toBe(10_000);
-    expect(readPercentBp('100.01')).toBeNull();
-    expect(readPercentBp('ten')).toBeNull();
+    expect(moneyOrNull('25', 'USD')).toBe(2_500);
+    expect(moneyOrNull('25.5', 'USD')).toBe(2_550);
+    expect(moneyOrNull('0,75', 'EUR')).toBe(75);
+    expect(moneyOrNull('25.555', 'USD')).toBeNull();
+    expect(moneyOrNull('1200', 'JPY')).toBe(1_200);
+    expect(moneyOrNull('-3', 'USD')).toBeNull();
+    const bp = (text: string) => {
+      const read = parsePercentBp(text);
+      return read.ok ? read.value : null;
+    };
+    expect(bp('12.5')).toBe(1_250);
+    expect(bp('100')).toBe(10_000);
+    expect(bp('100.01')).toBeNull();
+    expect(bp('ten')).toBeNull();
   });
 
   it('says what is wrong, field by field, and gives no inputs until it is right', () => {

@@ -9,6 +9,7 @@ import {
   type QuoteInputsArgs,
   type SettingsQuote,
 } from '@panelpass/shared';
+import { moneyOrNull, parsePercentBp } from '../../settings/model/typedNumbers';
 
 /**
  * The quote builder's form, as typed: numbers stay text until they are read, so a half-typed
@@ -126,24 +127,6 @@ export function distanceFromBase(
   }
 }
 
-/** "12.50" in the currency's minor units (1250), or null when it is not an amount. */
-export function readMoney(text: string, currency: string): number | null {
-  const digits = currencyDigits(currency);
-  const m = /^\s*(\d{1,9})(?:[.,](\d*))?\s*$/.exec(text);
-  if (!m) return null;
-  const fraction = m[2] ?? '';
-  if (fraction.length > digits) return null;
-  return Number(m[1]) * 10 ** digits + Number(fraction.padEnd(digits, '0') || '0');
-}
-
-/** "12.5" (percent) as basis points (1250), or null when it is not a percentage to 2 places. */
-export function readPercentBp(text: string): number | null {
-  const m = /^\s*(\d{1,3})(?:[.,](\d{0,2}))?\s*$/.exec(text);
-  if (!m) return null;
-  const bp = Number(m[1]) * 100 + Number((m[2] ?? '').padEnd(2, '0'));
-  return bp <= 10_000 ? bp : null;
-}
-
 export interface ReadDraft {
   /** The command's inputs, when the form can be read. */
   inputs: QuoteInputsArgs | null;
@@ -164,11 +147,12 @@ export function readDraft(
 
   let discount: QuoteInputsArgs['discount'];
   if (draft.discountKind === 'percent') {
-    const bp = readPercentBp(draft.discount);
+    const read = parsePercentBp(draft.discount);
+    const bp = read.ok ? read.value : null;
     if (bp === null) problems.discount = 'Discount: a percentage from 0 to 100, like 10 or 12.5.';
     else discount = { kind: 'percent', percentBp: bp };
   } else if (draft.discountKind === 'fixed') {
-    const amount = readMoney(draft.discount, currency);
+    const amount = moneyOrNull(draft.discount, currency);
     if (amount === null) problems.discount = 'Discount: an amount like 25 or 25.00.';
     else discount = { kind: 'fixed', amountMinor: amount };
   }

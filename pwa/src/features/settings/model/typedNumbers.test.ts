@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import {
   formatBp,
   formatMoney,
+  moneyOrNull,
   parseDecimalNumber,
   parseMoney,
   parsePercentBp,
@@ -74,6 +75,19 @@ describe('money typed in major units becomes exact minor units', () => {
     expect(formatMoney(5, 'USD')).toBe('0.05');
     expect(formatMoney(123_456_700, 'USD')).toBe('1234567.00');
     expect(formatMoney(1999, 'JPY')).toBe('1999');
+  });
+});
+
+describe('amounts typed at handover and on a job (a form that words its own problem)', () => {
+  it('reads money as minor units and refuses anything else', () => {
+    expect(moneyOrNull('45', 'USD')).toBe(4500);
+    expect(moneyOrNull('1,045.5', 'USD')).toBe(104_550);
+    expect(moneyOrNull('0.05', 'USD')).toBe(5);
+    expect(moneyOrNull('4.555', 'USD')).toBeNull();
+    expect(moneyOrNull('-3', 'USD')).toBeNull();
+    expect(moneyOrNull('', 'USD')).toBeNull();
+    expect(formatMoney(104_550, 'USD')).toBe('1045.50');
+    expect(formatMoney(5, 'USD')).toBe('0.05');
   });
 });
 

@@ -95,6 +95,12 @@ export function parseMoney(text: string, currency: string): Typed<number> {
   return ok(Number(minorUnits));
 }
 
+/** `parseMoney` for a form that words its own problem: the minor units, or null. */
+export function moneyOrNull(text: string, currency: string): number | null {
+  const read = parseMoney(text, currency);
+  return read.ok ? read.value : null;
+}
+
 /** Whole minor units → what the field shows ("19.99" for 1999 USD; no thousands marks). */
 export function formatMoney(minorUnits: number, currency: string): string {
   const digits = currencyDigits(currency);
