@@ -1,8 +1,9 @@
 import { useLiveQuery } from 'dexie-react-hooks';
-import { useEffect, useRef, useState, useSyncExternalStore } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import type { PhotoRow } from '@panelpass/shared';
 import { isApiError, isNetworkError } from '../../api/errors';
 import { apiClient, sessionStore } from '../../app/services';
+import { useOnline } from '../../app/useOnline';
 import { fetchImage, touch, type BlobDownloader, type ImageBytes } from '../../db/blobCache';
 import { useLocalDb } from '../../db/hooks';
 import { createImageDownloader } from './downloadImage';
@@ -65,24 +66,6 @@ let appDownloader: BlobDownloader | null = null;
 function downloader(): BlobDownloader {
   appDownloader ??= createImageDownloader({ api: apiClient, sessionStore });
   return appDownloader;
-}
-
-function subscribeOnline(changed: () => void): () => void {
-  window.addEventListener('online', changed);
-  window.addEventListener('offline', changed);
-  return () => {
-    window.removeEventListener('online', changed);
-    window.removeEventListener('offline', changed);
-  };
-}
-
-/** Whether the phone says it has signal (a download is tried again when it comes back). */
-function useOnline(): boolean {
-  return useSyncExternalStore(
-    subscribeOnline,
-    () => navigator.onLine,
-    () => true,
-  );
 }
 
 /** What a failed download means for the screen. */

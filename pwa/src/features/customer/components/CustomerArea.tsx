@@ -2,7 +2,7 @@ import { QueryClientProvider } from '@tanstack/react-query';
 import { queryClient } from '../../../app/queryClient';
 import { Notice } from '../../../components/Notice';
 import { useCustomerArea } from '../hooks/useCustomerArea';
-import { useOnline } from '../hooks/useOnline';
+import { useOnline } from '../../../app/useOnline';
 import { CustomerJobs } from './CustomerJobs';
 import { CustomerQuotes } from './CustomerQuotes';
 

@@ -15,7 +15,7 @@ import {
 } from '../api/ledgerApi';
 import { connectionOf, type Loadable } from '../model/connection';
 import { chartRange, monthRange, type Month } from '../model/ledgerModel';
-import { useOnline } from './useOnline';
+import { useOnline } from '../../../app/useOnline';
 
 /**
  * The Ledger of one month, from the server (it needs a signal): the chart's months ending with

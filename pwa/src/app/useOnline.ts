@@ -9,7 +9,11 @@ function subscribe(changed: () => void): () => void {
   };
 }
 
-/** Whether the phone says it has a connection (the customer's page works online only). */
+/**
+ * Whether the phone says it has a connection, kept current by the online/offline events (a
+ * failed request is the other half of the answer). The customer's page, the Ledger and image
+ * downloads read it; the sync engine keeps its own status.
+ */
 export function useOnline(): boolean {
   return useSyncExternalStore(
     subscribe,
