@@ -1,19 +1,9 @@
-import { canonicalJson, type CanonicalValue, type CommandArgs } from '@panelpass/shared';
+import type { CanonicalValue, CommandArgs } from '@panelpass/shared';
+import { ownBuffer, recordHash, sha256Hex } from './hashing';
 import type { LocalDb, OutboxEntry } from './localDb';
 import { mutate } from './mutate';
 
-/** SHA-256 of bytes, as the server names blobs: 64 lower-case hex characters. */
-export async function sha256Hex(data: ArrayBuffer | Uint8Array): Promise<string> {
-  // A view rather than the buffer itself: some WebCrypto bindings only check views loosely.
-  const digest = await crypto.subtle.digest('SHA-256', new Uint8Array(ownBuffer(data)));
-  return Array.from(new Uint8Array(digest), (b) => b.toString(16).padStart(2, '0')).join('');
-}
-
-/** A copy of just these bytes as an ArrayBuffer (a view may sit in a larger buffer). */
-function ownBuffer(data: ArrayBuffer | Uint8Array): ArrayBuffer {
-  if (!(data instanceof Uint8Array)) return data;
-  return new Uint8Array(data).buffer;
-}
+export { recordHash, sha256Hex } from './hashing';
 
 export type PhotoInput = Omit<CommandArgs['photo.attach'], 'sha256' | 'bytes' | 'mime'> & {
   data: ArrayBuffer | Uint8Array;
@@ -34,11 +24,6 @@ export async function attachPhoto(db: LocalDb, input: PhotoInput): Promise<Outbo
     { ...args, sha256, mime, bytes: buffer.byteLength },
     { blob: { sha256, mime, data: buffer } },
   );
-}
-
-/** SHA-256 of the canonical JSON of what was shown to the signer (the server checks it). */
-export async function recordHash(record: CanonicalValue): Promise<string> {
-  return sha256Hex(new TextEncoder().encode(canonicalJson(record)));
 }
 
 export type SignatureInput = Omit<

@@ -15,15 +15,8 @@ import {
   type ConditionRecord,
 } from '../model/conditionRecordWords';
 import { problemWords } from '../model/problemWords';
-import { shortHash } from '../model/quoteRecord';
-
-function signedWhen(iso: string): string {
-  const at = new Date(iso);
-  if (Number.isNaN(at.getTime())) return '';
-  const time = at.toLocaleTimeString(undefined, { hour: 'numeric', minute: '2-digit' });
-  const day = at.toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' });
-  return `${time} on ${day}`;
-}
+import { shortHash } from '../../../db/hashing';
+import { signedWhen } from '../../prep/kit/time';
 
 function RecordImage({ url, alt }: { url: string; alt: string }) {
   const image = useCustomerImage(url);

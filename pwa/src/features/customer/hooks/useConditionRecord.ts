@@ -2,7 +2,7 @@ import { useQuery } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
 import { apiClient, sessionStore } from '../../../app/services';
 import { conditionRecordQuery, customerImageQuery } from '../api/customerApi';
-import { sha256OfRecord } from '../model/quoteRecord';
+import { recordHash as hashOfRecord } from '../../../db/hashing';
 
 /** The walkaround record of a job, read only when `enabled` (its sheet is open). */
 export function useConditionRecord(jobId: string, enabled: boolean) {
@@ -37,7 +37,7 @@ export function useFingerprintCheck(record: unknown, recordHash: string): boolea
   useEffect(() => {
     let live = true;
     setMatches(null);
-    sha256OfRecord(record as Parameters<typeof sha256OfRecord>[0])
+    hashOfRecord(record as Parameters<typeof hashOfRecord>[0])
       .then((h) => {
         if (live) setMatches(h === recordHash);
       })

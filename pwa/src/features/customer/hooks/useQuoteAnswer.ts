@@ -2,7 +2,8 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { apiClient, sessionStore } from '../../../app/services';
 import { declineQuote, signAndAccept, type AcceptIds } from '../api/customerApi';
-import { sha256OfRecord, type QuoteRecord } from '../model/quoteRecord';
+import { recordHash } from '../../../db/hashing';
+import type { QuoteRecord } from '../model/quoteRecord';
 
 /**
  * Accepting a quote with a signature, or declining it. The ids of an acceptance are made once
@@ -26,7 +27,7 @@ export function useQuoteAnswer(quoteId: string) {
       signAndAccept(apiClient, sessionStore, {
         ids,
         record: args.record,
-        recordHash: await sha256OfRecord(args.record),
+        recordHash: await recordHash(args.record),
         signerName: args.signerName,
         png: args.png,
       }),

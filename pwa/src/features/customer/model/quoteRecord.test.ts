@@ -1,10 +1,10 @@
 import { canonicalJson } from '@panelpass/shared';
 import { createHash } from 'node:crypto';
+import { recordHash } from '../../../db/hashing';
 import { describe, expect, it } from 'vitest';
 import {
   buildQuoteRecord,
   dayInput,
-  sha256OfRecord,
   visitProblem,
   visitWindow,
   type CustomerQuote,
@@ -95,7 +95,7 @@ describe('buildQuoteRecord', () => {
 
   it('hashes as the server does (SHA-256 of canonical JSON), and any change changes it', async () => {
     const expected = createHash('sha256').update(canonicalJson(record), 'utf8').digest('hex');
-    expect(await sha256OfRecord(record)).toBe(expected);
+    expect(await recordHash(record)).toBe(expected);
     const other = buildQuoteRecord({
       quote: { ...quote, totalMinor: quote.totalMinor + 1 },
       business: 'Heronwake Mobile Finish',
@@ -103,6 +103,6 @@ describe('buildQuoteRecord', () => {
       visit,
       locale: 'en-GB',
     });
-    expect(await sha256OfRecord(other)).not.toBe(expected);
+    expect(await recordHash(other)).not.toBe(expected);
   });
 });

@@ -1,4 +1,4 @@
-import { canonicalJson, formatMinor, type CanonicalValue } from '@panelpass/shared';
+import { formatMinor, type CanonicalValue } from '@panelpass/shared';
 
 /** A quote as the customer's answers give it (GET /api/quotes, /api/quotes/:id). */
 export interface CustomerQuote {
@@ -175,22 +175,6 @@ export function buildQuoteRecord(input: {
       words: windowWords(visit.start, visit.end, input.locale),
     },
   };
-}
-
-/** SHA-256 of the canonical JSON of a record (the server recomputes and compares it). */
-export async function sha256OfRecord(record: CanonicalValue): Promise<string> {
-  return sha256Hex(new TextEncoder().encode(canonicalJson(record)));
-}
-
-/** SHA-256 of bytes as 64 lower-case hex characters. */
-export async function sha256Hex(bytes: Uint8Array): Promise<string> {
-  const digest = await crypto.subtle.digest('SHA-256', new Uint8Array(bytes));
-  return Array.from(new Uint8Array(digest), (b) => b.toString(16).padStart(2, '0')).join('');
-}
-
-/** "3f9a 1c2e": the start of a hash in two groups, to read aloud or compare. */
-export function shortHash(hash: string): string {
-  return `${hash.slice(0, 4)} ${hash.slice(4, 8)}`;
 }
 
 /** A quote's state in words, for the customer. */

@@ -7,6 +7,7 @@ import { shortHash } from '../../walkaround/model/conditionRecord';
 import type { HandoverData } from '../hooks/useHandover';
 import type { AcceptanceRecord } from '../model/handoverSummary';
 import { AcceptanceView } from './AcceptanceView';
+import { signedWhen } from '../../prep/kit/time';
 
 // The walkaround's signing sheet (and its pad) is loaded only when it is first opened.
 const SignatureSheet = lazy(() =>
@@ -23,14 +24,6 @@ const ACCEPTANCE_WORDS: SignatureWords<AcceptanceRecord> = {
   signLabel: 'Sign and accept the work',
   view: (record) => <AcceptanceView record={record} />,
 };
-
-function signedWhen(iso: string): string {
-  const at = new Date(iso);
-  if (Number.isNaN(at.getTime())) return '';
-  const time = at.toLocaleTimeString(undefined, { hour: '2-digit', minute: '2-digit' });
-  const day = at.toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' });
-  return `${time} on ${day}`;
-}
 
 /**
  * The customer's acceptance signature over the summary of the work: who, when and the start

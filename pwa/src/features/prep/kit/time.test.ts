@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { clockTime, countdown, dayAndTime, durationWords, hoursWords } from './time';
+import { clockTime, countdown, dayAndTime, durationWords, hoursWords, signedWhen } from './time';
 import { decimalText, parseDecimal } from './numbers';
 
 const T = new Date(2026, 4, 15, 14, 32).getTime();
@@ -13,6 +13,11 @@ describe('times in words', () => {
     const afterMidnight = new Date(2026, 4, 15, 0, 13).getTime();
     expect(clockTime(afterMidnight, 'en-GB')).toBe('00:13');
     expect(clockTime(afterMidnight, 'en-US')).toMatch(/^12:13\s?AM$/);
+  });
+
+  it('says when a record was signed with its day, and nothing for a time that is not one', () => {
+    expect(signedWhen(new Date(T).toISOString(), 'en-GB')).toBe('14:32 on 15 May 2026');
+    expect(signedWhen('not a time', 'en-GB')).toBe('');
   });
 
   it('adds the day only when it is not today, and says "tomorrow"', () => {

@@ -28,6 +28,14 @@ export function dayAndTime(ms: number, nowMs: number, locale?: string): string {
   return `${day}, ${clockTime(ms, locale)}`;
 }
 
+/** When a record was signed: "14:05 on 2 Dec 2026" (empty for a time that is not one). */
+export function signedWhen(iso: string, locale?: string): string {
+  const at = new Date(iso);
+  if (Number.isNaN(at.getTime())) return '';
+  const day = at.toLocaleDateString(locale, { day: 'numeric', month: 'short', year: 'numeric' });
+  return `${clockTime(at.getTime(), locale)} on ${day}`;
+}
+
 /** "at 14:05" today, else "14:05 tomorrow" or "Fri 16 May, 14:05" (after a verb). */
 export function atWords(ms: number, nowMs: number, locale?: string): string {
   const sameDay = new Date(ms).toDateString() === new Date(nowMs).toDateString();

@@ -4,18 +4,11 @@ import { recordHash } from '../../../db/images';
 import { useImageUrl } from '../../photos';
 import type { WalkaroundData } from '../hooks/useWalkaround';
 import { shortHash, type ConditionRecord } from '../model/conditionRecord';
+import { signedWhen } from '../../prep/kit/time';
 
 const SignatureSheet = lazy(() =>
   import('./SignatureSheet').then((m) => ({ default: m.SignatureSheet })),
 );
-
-function signedWhen(iso: string): string {
-  const at = new Date(iso);
-  if (Number.isNaN(at.getTime())) return '';
-  const time = at.toLocaleTimeString(undefined, { hour: '2-digit', minute: '2-digit' });
-  const day = at.toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' });
-  return `${time} on ${day}`;
-}
 
 /**
  * The owner's signature on the condition record. Once signed: who and when, the record's

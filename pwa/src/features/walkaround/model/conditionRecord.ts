@@ -103,10 +103,7 @@ export function buildConditionRecord(input: RecordInput): ConditionRecord {
   };
 }
 
-/** "3f9a 1c2e" — the first 8 hex digits of a hash, in two groups, to read aloud or compare. */
-export function shortHash(hash: string): string {
-  return `${hash.slice(0, 4)} ${hash.slice(4, 8)}`;
-}
+export { shortHash } from '../../../db/hashing';
 
 /** Reads a stored record back as a ConditionRecord when it has that shape (else null). */
 export function asConditionRecord(value: unknown): ConditionRecord | null {
