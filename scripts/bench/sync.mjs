@@ -104,3 +104,6 @@ console.log(
 console.log(
   `pull:      ${pulled} rows in ${pages} pages in ${pullSeconds.toFixed(2)} s (server side, goal for pull+apply < 3 s)`,
 );
+console.log(
+  `sync: push ${((100 * pushRate) / rawRate).toFixed(1)} % of raw insert (goal ≥ 25 %) ${pushRate >= rawRate / 4 ? 'ok' : 'missed'}; pull ${pulled} rows ${pullSeconds.toFixed(2)} s`,
+);
