@@ -3,9 +3,16 @@ import { QueryFailedError } from 'typeorm';
 import { AllExceptionsFilter } from './all-exceptions.filter';
 import { AppException } from './app.exception';
 
-function capture(exception: unknown): { status: number; body: unknown } {
-  const out = { status: 0, body: undefined as unknown };
+function capture(exception: unknown): {
+  status: number;
+  body: unknown;
+  headers: Record<string, string>;
+} {
+  const out = { status: 0, body: undefined as unknown, headers: {} as Record<string, string> };
   const res = {
+    setHeader(name: string, value: string) {
+      out.headers[name] = value;
+    },
     status(code: number) {
       out.status = code;
       return this;
@@ -32,6 +39,7 @@ describe('AllExceptionsFilter', () => {
         message: 'Nope',
         details: { allowed: ['Prep'] },
       },
+      headers: {},
     });
   });
 
@@ -66,6 +74,71 @@ describe('AllExceptionsFilter', () => {
     expect(r).toEqual({
       status: 500,
       body: { statusCode: 500, code: 'internal', message: 'Something went wrong on the server' },
+      headers: {},
+    });
+  });
+
+  describe('a database that is away or restarting answers 503 with Retry-After', () => {
+    const withCode = (message: string, code: string) => Object.assign(new Error(message), { code });
+    const cases: [string, unknown][] = [
+      ['socket refused', withCode('connect ECONNREFUSED 127.0.0.1:5432', 'ECONNREFUSED')],
+      ['socket reset', withCode('read ECONNRESET', 'ECONNRESET')],
+      [
+        'admin shutdown (57P01)',
+        withCode('terminating connection due to administrator command', '57P01'),
+      ],
+      ['crash shutdown (57P02)', withCode('terminating connection because of crash', '57P02')],
+      ['starting up (57P03)', withCode('the database system is starting up', '57P03')],
+      ['connection failure (08006)', withCode('connection failure', '08006')],
+      ['cannot connect (08001)', withCode('could not connect', '08001')],
+      ['no connection (08003)', withCode('connection does not exist', '08003')],
+      ['socket closed under a query', new Error('Connection terminated unexpectedly')],
+      ['pool connect timeout', new Error('timeout exceeded when trying to connect')],
+      [
+        'client used after its connection failed',
+        new Error('Client has encountered a connection error and is not queryable'),
+      ],
+      [
+        'a query wrapped by TypeORM',
+        new QueryFailedError('SELECT 1', [], new Error('Connection terminated unexpectedly')),
+      ],
+      [
+        'a SQLSTATE wrapped by TypeORM',
+        new QueryFailedError('SELECT 1', [], withCode('starting up', '57P03')),
+      ],
+      [
+        'a released query runner',
+        Object.assign(new Error('Query runner already released. Cannot run queries anymore.'), {
+          name: 'QueryRunnerAlreadyReleasedError',
+        }),
+      ],
+      [
+        'a connect that tried several addresses',
+        new AggregateError([withCode('connect ECONNREFUSED ::1:5432', 'ECONNREFUSED')], ''),
+      ],
+      ['an error caused by one', new Error('command failed', { cause: withCode('x', '57P01') })],
+    ];
+    it.each(cases)('%s', (_what, exception) => {
+      const r = capture(exception);
+      expect(r.status).toBe(503);
+      expect(r.body).toEqual({
+        statusCode: 503,
+        code: 'database-unavailable',
+        message: expect.stringMatching(/cannot reach its database.*kept on the phone/) as unknown,
+      });
+      expect(r.headers['Retry-After']).toMatch(/^\d+$/);
+    });
+
+    it('leaves other failures as they are, with no Retry-After', () => {
+      const dup = new QueryFailedError('INSERT', [], withCode('dup', '23505'));
+      expect(capture(dup)).toMatchObject({ status: 409, headers: {} });
+      expect(capture(withCode('syntax error', '42601'))).toMatchObject({
+        status: 500,
+        headers: {},
+      });
+      expect(capture(new Error('Connection to the payment service refused'))).toMatchObject({
+        status: 500,
+      });
     });
   });
 });

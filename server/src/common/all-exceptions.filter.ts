@@ -31,7 +31,11 @@ export class AllExceptionsFilter implements ExceptionFilter {
   catch(exception: unknown, host: ArgumentsHost): void {
     const res = host.switchToHttp().getResponse<Response>();
     const body = toErrorBody(exception);
-    if (body.statusCode >= 500) {
+    if (body.code === DATABASE_UNAVAILABLE) {
+      // One line, not a stack per request, while the database is away; the phone tries again.
+      this.logger.warn(`database unavailable: ${describe(exception)}`);
+      res.setHeader('Retry-After', String(RETRY_AFTER_SECONDS));
+    } else if (body.statusCode >= 500) {
       this.logger.error(
         exception instanceof Error ? (exception.stack ?? exception.message) : String(exception),
       );
@@ -40,9 +44,68 @@ export class AllExceptionsFilter implements ExceptionFilter {
   }
 }
 
-function isDatabaseDown(e: unknown): boolean {
-  const code = (e as { code?: string } | null)?.code;
-  return code === 'ECONNREFUSED' || code === '57P01' || code === '57P03' || code === 'ECONNRESET';
+export const DATABASE_UNAVAILABLE = 'database-unavailable';
+/** What a client is told to wait before trying again while the database is away. */
+export const RETRY_AFTER_SECONDS = 5;
+
+/**
+ * Error codes of a database that is away or restarting (not of a wrong request): sockets
+ * refused or cut, SQLSTATE 57P01–57P03 (shut down by an administrator, crashed, cannot
+ * connect now — also "starting up"), 53300 (too many connections), and class 08 (connection
+ * exception) as a prefix.
+ */
+const DOWN_CODES = new Set([
+  'ECONNREFUSED',
+  'ECONNRESET',
+  'EPIPE',
+  'ETIMEDOUT',
+  'EHOSTUNREACH',
+  'ENETUNREACH',
+  'ENOTFOUND',
+  'EAI_AGAIN',
+  '57P01',
+  '57P02',
+  '57P03',
+  '53300',
+]);
+/**
+ * node-postgres and TypeORM say the same things without a code: the socket closed under a
+ * query, the pool's connect timeout, a client used after its connection failed, a query runner
+ * TypeORM released because its connection failed.
+ */
+const DOWN_MESSAGES = [
+  /^Connection terminated/i,
+  /timeout exceeded when trying to connect/i,
+  /has encountered a connection error and is not queryable/i,
+  /Client was closed and is not queryable/i,
+  /^Query runner already released/i,
+];
+
+/**
+ * Whether an error means the database cannot be reached just now — however node-postgres,
+ * pg-pool or TypeORM wrap it (QueryFailedError's driverError, an Error's cause, the
+ * AggregateError of a connect that tried several addresses).
+ */
+export function isDatabaseDown(e: unknown, depth = 0): boolean {
+  if (typeof e !== 'object' || e === null || depth > 4) return false;
+  const err = e as { code?: unknown; message?: unknown; name?: unknown; errors?: unknown };
+  const code = typeof err.code === 'string' ? err.code : '';
+  if (DOWN_CODES.has(code) || /^08[0-9A-Z]{3}$/.test(code)) return true;
+  if (err.name === 'QueryRunnerAlreadyReleasedError') return true;
+  if (typeof err.message === 'string' && DOWN_MESSAGES.some((re) => re.test(err.message as string)))
+    return true;
+  const inner = [
+    (e as { driverError?: unknown }).driverError,
+    (e as { cause?: unknown }).cause,
+    ...(Array.isArray(err.errors) ? (err.errors as unknown[]) : []),
+  ];
+  return inner.some((x) => x !== e && isDatabaseDown(x, depth + 1));
+}
+
+function describe(e: unknown): string {
+  if (!(e instanceof Error)) return String(e);
+  const code = (e as { code?: unknown }).code;
+  return typeof code === 'string' ? `${code} ${e.message}` : e.message;
 }
 
 /** The one error shape for any error; also used by the sync push to record refusals. */
@@ -97,9 +160,9 @@ export function toErrorBody(exception: unknown): ErrorBody {
   if (isDatabaseDown(exception)) {
     return {
       statusCode: HttpStatus.SERVICE_UNAVAILABLE,
-      code: 'database-unavailable',
+      code: DATABASE_UNAVAILABLE,
       message:
-        'The database is not reachable right now; your changes are kept on the device. Try again shortly.',
+        'The server cannot reach its database just now; your changes are kept on the phone and will be sent when it is back.',
     };
   }
   return { statusCode: 500, code: 'internal', message: 'Something went wrong on the server' };
