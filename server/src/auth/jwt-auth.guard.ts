@@ -1,6 +1,7 @@
 import { ExecutionContext, HttpStatus, Injectable } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
 import { AuthGuard } from '@nestjs/passport';
+import { isDatabaseDown } from '../common/all-exceptions.filter';
 import { AppException } from '../common/app.exception';
 import { IS_PUBLIC } from './public.decorator';
 
@@ -21,6 +22,9 @@ export class JwtAuthGuard extends AuthGuard('jwt') {
   }
 
   override handleRequest<T>(err: unknown, user: T | false, info: unknown): T {
+    // The person lookup failed because the database is away: 503, never "sign in again" (a
+    // phone told 401 would drop its session over an outage).
+    if (isDatabaseDown(err)) throw err;
     if (err || !user) {
       const expired = (info as { name?: string } | undefined)?.name === 'TokenExpiredError';
       throw new AppException(
