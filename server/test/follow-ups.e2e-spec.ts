@@ -321,6 +321,22 @@ describe('follow-ups', () => {
       expect(rows[0]!.due_at.getTime()).toBe(start.getTime() - DAY);
     });
 
+    it('starting the visit early cancels its reminder at once, in the same change', async () => {
+      const { ok } = api(app, owner.accessToken);
+      const { jobId } = await book(app, owner, { start: minute(Date.now() + 4 * DAY) });
+      const [before] = await rowsOf(db, jobId, 'appointment');
+      expect(before).toMatchObject({ status: 'scheduled' });
+
+      await ok('POST', `/api/jobs/${jobId}/stage`, { stage: 'walkaround' });
+      const rows = await rowsOf(db, jobId, 'appointment');
+      expect(rows).toHaveLength(1);
+      expect(rows[0]).toMatchObject({
+        status: 'cancelled',
+        cancel_reason: 'The visit has started',
+      });
+      expect(await queueJob(db, before!.id)).toMatchObject({ state: 'cancelled' });
+    });
+
     it('makes none when the day before has already passed', async () => {
       const { jobId } = await book(app, owner, { start: minute(Date.now() + 20 * 3_600_000) });
       expect(await rowsOf(db, jobId, 'appointment')).toHaveLength(0);

@@ -224,7 +224,12 @@ export class JobsService implements OnModuleInit {
     }
     if (stage === 'closed') for (const hook of this.closeHooks) await hook(ctx, job);
     await m.update(Job, { id }, { stage });
-    return m.findOneByOrFail(Job, { id });
+    const moved = await m.findOneByOrFail(Job, { id });
+    // Leaving "booked" (the visit started early, or was cancelled) ends what a booking
+    // scheduled, such as its appointment reminder, in this same transaction.
+    if (job.stage === 'booked' || stage === 'booked')
+      for (const hook of this.bookingHooks) await hook(ctx, moved, 'updated');
+    return moved;
   }
 
   async assign({ actor, m }: CommandContext, { id, techId }: AssignJobDto): Promise<Job> {
