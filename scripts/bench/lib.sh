@@ -16,17 +16,23 @@ bench_cleanup() {
 trap bench_cleanup EXIT
 
 # bench_server PORT: migrates the throwaway database and starts the built server on PORT.
+# PANELPASS_SERVER_DIST: another built server folder (default server/dist, built when missing);
+# PANELPASS_BENCH_NO_INSTALL=1 skips the npm package check.
 bench_server() {
-  local port=$1
-  ensure_node_modules
+  local port=$1 dist=${PANELPASS_SERVER_DIST:-server/dist}
+  local log=/tmp/panelpass-bench-server-$port.log
+  [ -n "${PANELPASS_BENCH_NO_INSTALL:-}" ] || ensure_node_modules
   scripts/db start >/dev/null
   export DATABASE_URL
   DATABASE_URL=$(scripts/db url)
-  [ -f server/dist/main.js ] || npm run --silent build -w shared -w server
-  node server/dist/database/migrate.js >/dev/null
+  if [ ! -f "$dist/main.js" ]; then
+    [ -z "${PANELPASS_SERVER_DIST:-}" ] || { echo "no built server in $dist" >&2; exit 1; }
+    npm run --silent build -w shared -w server
+  fi
+  node "$dist/database/migrate.js" >/dev/null
   NODE_ENV=production HOST=127.0.0.1 PORT=$port JWT_SECRET=bench-secret-bench-secret-bench-secret-1 \
-    SIGN_IN_LIMIT=100000 node server/dist/main.js >/tmp/panelpass-bench-server.log 2>&1 &
+    SIGN_IN_LIMIT=100000 node "$dist/main.js" >"$log" 2>&1 &
   BENCH_SERVER_PID=$!
-  wait_for_http "http://127.0.0.1:$port/api/health" 60 || { cat /tmp/panelpass-bench-server.log; exit 1; }
+  wait_for_http "http://127.0.0.1:$port/api/health" 60 || { cat "$log"; exit 1; }
   export BENCH_URL="http://127.0.0.1:$port"
 }
