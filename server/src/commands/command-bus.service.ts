@@ -80,6 +80,7 @@ export class CommandBus {
     if (errors.length) throw validationFailed(errors);
     await lockBusinessWrites(m, actor.businessId);
     const result = await def.run({ actor, m, via }, args);
+    if (def.audited === false) return result as R;
     const subjectId = typeof rawArgs.id === 'string' ? rawArgs.id : null;
     await m
       .createQueryBuilder()

@@ -19,6 +19,11 @@ export interface CommandDef<A extends object = object, R = unknown> {
   name: string;
   args: ClassConstructor<A>;
   roles: readonly Role[];
+  /**
+   * False only for a command that removes the business itself (`business.delete`): an entry
+   * kept under a business that no longer exists would be a row of it left behind.
+   */
+  audited?: boolean;
   run(ctx: CommandContext, args: A): Promise<R>;
 }
 
