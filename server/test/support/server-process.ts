@@ -1,18 +1,43 @@
 import { type ChildProcess, spawn } from 'node:child_process';
 import { existsSync } from 'node:fs';
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 import { TEST_JWT_SECRET } from './app';
 
 /** The built server; PANELPASS_SERVER_MAIN points at another build (a private dist folder). */
 const MAIN = process.env.PANELPASS_SERVER_MAIN ?? join(__dirname, '..', '..', 'dist', 'main.js');
 
+/** The built migration runner beside it. */
+export const MIGRATE = join(dirname(MAIN), 'database', 'migrate.js');
+
+export interface ServerProcessOptions {
+  /** Another database than the tests' DATABASE_URL (a throwaway cluster of a fault test). */
+  databaseUrl?: string;
+  /** More environment (FOLLOW_UPS=on…). */
+  env?: Record<string, string>;
+  /** Keep what the process writes (stdout and stderr) in `output` instead of showing stderr. */
+  captureOutput?: boolean;
+}
+
 /** The built server as a real process, to kill and restart in fault tests. */
 export class ServerProcess {
   private child: ChildProcess | null = null;
   readonly url: string;
+  /** Everything the process wrote, with captureOutput. */
+  output = '';
 
-  constructor(readonly port: number) {
+  constructor(
+    readonly port: number,
+    private readonly options: ServerProcessOptions = {},
+  ) {
     this.url = `http://127.0.0.1:${port}`;
+  }
+
+  /** The running process's id; null when it is not running (never started, killed or exited). */
+  get pid(): number | null {
+    const child = this.child;
+    return child && child.exitCode === null && child.signalCode === null
+      ? (child.pid ?? null)
+      : null;
   }
 
   async start(): Promise<void> {
@@ -26,9 +51,18 @@ export class ServerProcess {
         PORT: String(this.port),
         JWT_SECRET: TEST_JWT_SECRET,
         SIGN_IN_LIMIT: '1000',
+        ...(this.options.databaseUrl ? { DATABASE_URL: this.options.databaseUrl } : {}),
+        ...this.options.env,
       },
-      stdio: ['ignore', 'ignore', 'inherit'],
+      stdio: [
+        'ignore',
+        this.options.captureOutput ? 'pipe' : 'ignore',
+        this.options.captureOutput ? 'pipe' : 'inherit',
+      ],
     });
+    const keep = (chunk: Buffer) => (this.output += chunk.toString());
+    this.child.stdout?.on('data', keep);
+    this.child.stderr?.on('data', keep);
     for (let i = 0; i < 200; i++) {
       try {
         const res = await fetch(`${this.url}/api/health`);
