@@ -16,4 +16,32 @@ describe('validateEnv', () => {
     );
     expect(() => validateEnv({ ...good, PORT: 'eighty' })).toThrow(/PORT/);
   });
+
+  it('reads CORS_ORIGINS as a list of exact origins, none by default (same origin only)', () => {
+    expect(validateEnv(good).CORS_ORIGINS).toEqual([]);
+    expect(validateEnv({ ...good, CORS_ORIGINS: '' }).CORS_ORIGINS).toEqual([]);
+    expect(
+      validateEnv({
+        ...good,
+        CORS_ORIGINS: 'https://office.panelpass.test, http://127.0.0.1:5173,http://[::1]:8080',
+      }).CORS_ORIGINS,
+    ).toEqual(['https://office.panelpass.test', 'http://127.0.0.1:5173', 'http://[::1]:8080']);
+  });
+
+  it('refuses a CORS_ORIGINS entry that is not an exact origin (a path, a slash, *, upper case)', () => {
+    for (const bad of [
+      '*',
+      'https://office.panelpass.test/',
+      'https://office.panelpass.test/app',
+      'office.panelpass.test',
+      'https://*.panelpass.test',
+      'HTTPS://Office.Panelpass.Test',
+      'ftp://files.panelpass.test',
+      'null',
+    ]) {
+      expect(() =>
+        validateEnv({ ...good, CORS_ORIGINS: `https://ok.panelpass.test,${bad}` }),
+      ).toThrow(/CORS_ORIGINS must be exact origins/);
+    }
+  });
 });

@@ -6,6 +6,7 @@ import {
   IsNumber,
   IsOptional,
   IsString,
+  Matches,
   Max,
   Min,
   MinLength,
@@ -16,6 +17,16 @@ const toBool = ({ value }: { value: unknown }): unknown =>
   typeof value === 'string' ? ['1', 'true', 'yes', 'on'].includes(value.toLowerCase()) : value;
 const toNumber = ({ value }: { value: unknown }): unknown =>
   value === undefined || value === '' ? undefined : Number(value);
+const toList = ({ value }: { value: unknown }): unknown =>
+  typeof value === 'string'
+    ? value
+        .split(',')
+        .map((s) => s.trim())
+        .filter(Boolean)
+    : value;
+
+/** An exact origin as browsers send it: lower-case scheme and host, an optional port, nothing after. */
+const ORIGIN = /^https?:\/\/([a-z0-9-]+(\.[a-z0-9-]+)*|\[[0-9a-f:]+\])(:[0-9]{1,5})?$/;
 
 /** Every setting the server reads, checked once at boot so a typo fails fast and says why. */
 export class EnvironmentVariables {
@@ -64,6 +75,19 @@ export class EnvironmentVariables {
   @IsOptional()
   @IsString()
   PWA_DIST?: string;
+
+  /**
+   * Other sites allowed to call the API from a browser (CORS), as exact origins separated by
+   * commas: `https://office.example.com,https://example.com:8443`. Empty (the default): same
+   * origin only — the app is served by this server and needs no CORS.
+   */
+  @Transform(toList)
+  @Matches(ORIGIN, {
+    each: true,
+    message:
+      'CORS_ORIGINS must be exact origins separated by commas, e.g. https://office.example.com (lower case, no path, no trailing slash, no *)',
+  })
+  CORS_ORIGINS: string[] = [];
 
   /** Public base URL used in links sent to people (invites, customer links). */
   @IsString()
