@@ -42,6 +42,7 @@ import { HandoverModule } from './handover/handover.module';
 import { CustomerLinksModule } from './customer-links/customer-links.module';
 import { FollowUpsModule } from './follow-ups/follow-ups.module';
 import { CustomerAreaModule } from './customer-area/customer-area.module';
+import { BusinessDataModule } from './business-data/business-data.module';
 
 @Module({
   imports: [
@@ -82,6 +83,7 @@ import { CustomerAreaModule } from './customer-area/customer-area.module';
     CustomerLinksModule,
     FollowUpsModule,
     CustomerAreaModule,
+    BusinessDataModule,
     AuditModule,
     SyncModule,
     HealthModule,
