@@ -62,6 +62,9 @@ export async function seedDemo(ds: DataSource, bus: CommandBus): Promise<boolean
   const helper: Actor = { userId: people.helper!.id, businessId: business.id, role: 'tech' };
   const run = (actor: Actor, name: string, args: Record<string, unknown>) =>
     bus.execute(actor, name, args, 'seed');
+  /** The demo's money came in on the visit's day, not when the seed runs (demo data only). */
+  const paidDuringVisit = (paymentId: string, when: Date) =>
+    ds.query('UPDATE payments SET paid_at = $2 WHERE id = $1', [paymentId, when]);
 
   const product = {} as Record<ProductKey, string>;
   for (const [key, fields] of Object.entries(demoProducts) as [
@@ -212,14 +215,16 @@ export async function seedDemo(ds: DataSource, bus: CommandBus): Promise<boolean
           result: 'done',
         });
       }
+      const depositId = randomUUID();
       await run(owner, 'payment.recordCash', {
-        id: randomUUID(),
+        id: depositId,
         opId: randomUUID(),
         jobId,
         kind: 'deposit',
         method: 'cash',
         amountMinor: depositOf(visit.priceMinor),
       });
+      await paidDuringVisit(depositId, during(120));
     }
     if (visit.stage === 'closed' || visit.stage === 'handover') {
       for (const stage of ['correction', 'finish']) await setStage(stage);
@@ -236,8 +241,9 @@ export async function seedDemo(ds: DataSource, bus: CommandBus): Promise<boolean
       await setStage('handover');
     }
     if (visit.stage === 'closed') {
+      const balanceId = randomUUID();
       await run(owner, 'payment.recordCash', {
-        id: randomUUID(),
+        id: balanceId,
         opId: randomUUID(),
         jobId,
         kind: 'balance',
@@ -245,6 +251,7 @@ export async function seedDemo(ds: DataSource, bus: CommandBus): Promise<boolean
         // What is left after the deposit: the visit is paid in full, never over.
         amountMinor: visit.priceMinor - depositOf(visit.priceMinor),
       });
+      await paidDuringVisit(balanceId, during(330));
       await setStage('closed');
     }
   }
