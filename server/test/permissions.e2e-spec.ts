@@ -280,6 +280,16 @@ const MATRIX: Record<string, Row> = {
     req: () => ({ method: 'patch', path: '/api/business', body: { timezone: 'UTC' } }),
     expect: e(200, 403, 403, 403, 403, 200),
   },
+  'GET /api/business/export': {
+    req: () => ({ method: 'get', path: '/api/business/export', query: { format: 'json' } }),
+    expect: e(200, 403, 403, 403, 403, 200),
+  },
+  // A wrong name: an owner gets as far as the check (400) and nothing is deleted here;
+  // business-data.e2e-spec.ts deletes a business of its own.
+  'DELETE /api/business': {
+    req: () => ({ method: 'delete', path: '/api/business', body: { confirmName: 'Not its name' } }),
+    expect: e(400, 403, 403, 403, 403, 400),
+  },
   'POST /api/checks/{id}/toggle': {
     req: (w) => ({ method: 'post', path: `/api/checks/${w.checkA}/toggle`, body: { done: true } }),
     expect: e(200, 200, 404, 403, 403, 404),
@@ -874,6 +884,10 @@ const MATRIX: Record<string, Row> = {
 /** Routes that need no sign-in: one anonymous call each. */
 const PUBLIC: Record<string, PublicRow> = {
   'GET /api/health': { req: () => ({ method: 'get', path: '/api/health' }), status: 200 },
+  'GET /api/health/live': {
+    req: () => ({ method: 'get', path: '/api/health/live' }),
+    status: 200,
+  },
   'POST /api/auth/sign-up': {
     req: () => ({
       method: 'post',
