@@ -1,10 +1,13 @@
 import type { INestApplication } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DocumentBuilder, type OpenAPIObject, SwaggerModule } from '@nestjs/swagger';
 import express from 'express';
 import helmet from 'helmet';
 import { existsSync } from 'node:fs';
 import { join, resolve } from 'node:path';
+import { corsOptions, refuseOtherOrigins } from './common/cors';
+import type { EnvironmentVariables } from './config/env.validation';
 
 export function buildOpenApi(app: INestApplication): OpenAPIObject {
   const config = new DocumentBuilder()
@@ -46,8 +49,16 @@ export function setupApp(app: NestExpressApplication, pwaDist?: string): void {
         },
       },
       referrerPolicy: { policy: 'no-referrer' },
+      // RFC 6797: a year, sub-domains included (the proxy in front serves HTTPS).
+      strictTransportSecurity: { maxAge: 31_536_000, includeSubDomains: true },
     }),
   );
+  // CORS only for the exact origins in CORS_ORIGINS (none by default: the app is same-origin).
+  const origins = app
+    .get(ConfigService<EnvironmentVariables, true>)
+    .get('CORS_ORIGINS', { infer: true });
+  app.use(refuseOtherOrigins(origins));
+  app.enableCors(corsOptions(origins));
   SwaggerModule.setup('api/docs', app, () => buildOpenApi(app), {
     jsonDocumentUrl: 'api/docs-json',
   });
