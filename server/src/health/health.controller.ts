@@ -12,10 +12,21 @@ export class HealthDto {
   migrations: number;
 }
 
+export class LiveDto {
+  status: 'ok';
+}
+
 @ApiTags('health')
 @Controller('health')
 export class HealthController {
   constructor(@InjectDataSource() private readonly db: DataSource) {}
+
+  /** Answers at once with no database call: the process is up and serving requests. */
+  @Public()
+  @Get('live')
+  live(): LiveDto {
+    return { status: 'ok' };
+  }
 
   /** Reports whether the database answers; 503 when it does not. */
   @Public()
