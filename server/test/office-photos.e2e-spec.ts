@@ -54,7 +54,7 @@ describe('office: blobs, photos and signatures', () => {
     const res = await upload(owner, text, sha(text), 'image/png').expect(415);
     expect(res.body).toMatchObject({
       code: 'unsupported-image',
-      message: expect.stringContaining('Only JPEG, PNG or WebP'),
+      message: 'This file is not a JPEG, PNG or WebP image',
     });
   });
 
@@ -81,7 +81,7 @@ describe('office: blobs, photos and signatures', () => {
       .expect(200);
     expect(res.headers['content-type']).toBe('image/png');
     expect(res.headers['x-content-type-options']).toBe('nosniff');
-    expect(res.headers['content-disposition']).toBe('inline');
+    expect(res.headers['content-disposition']).toBe(`inline; filename="${hash}.png"`);
     expect(Buffer.compare(res.body as Buffer, PNG)).toBe(0);
     // Another business does not have it.
     const stranger = await signUpOwner(app, 'blob-stranger');

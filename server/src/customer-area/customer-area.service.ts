@@ -10,6 +10,7 @@ import { jobInScope } from '../common/scope';
 import { Customer } from '../customers/customer.entity';
 import { vehicleLabel } from '../documents/documents.service';
 import { BlobStore } from '../photos/blob-store.service';
+import { type BodyReadError, bodyReadProblem } from '../photos/image-type';
 import { Photo } from '../photos/photo.entity';
 import { quoteInScope } from '../quotes/quotes.service';
 import { Signature } from '../signatures/signature.entity';
@@ -60,22 +61,11 @@ export class CustomerAreaService {
     actor: Actor,
     quoteId: string,
     body: unknown,
-    bodyError?: { status?: number; type?: string },
+    bodyError?: BodyReadError,
   ): Promise<{ blob: SignatureImageDto; created: boolean }> {
     await quoteInScope(this.db.manager, actor, quoteId);
-    if (bodyError?.status === 413 || bodyError?.type === 'entity.too.large') {
-      throw new AppException(
-        HttpStatus.PAYLOAD_TOO_LARGE,
-        'blob-too-large',
-        `A signature image may be at most ${MAX_SIGNATURE_IMAGE_BYTES / 1024} KB`,
-      );
-    }
     if (bodyError) {
-      throw new AppException(
-        HttpStatus.BAD_REQUEST,
-        'blob-unreadable',
-        'The signature could not be read; send it again',
-      );
+      throw bodyReadProblem(bodyError, 'A signature image', MAX_SIGNATURE_IMAGE_BYTES);
     }
     if (!Buffer.isBuffer(body) || body.length === 0) {
       throw new AppException(
@@ -85,7 +75,8 @@ export class CustomerAreaService {
       );
     }
     const sha256 = createHash('sha256').update(body).digest('hex');
-    return this.blobs.put(actor, sha256, body);
+    // A signature pad draws a PNG: nothing else is taken here (checked by content).
+    return this.blobs.put(actor, sha256, body, ['image/png']);
   }
 
   /** The walkaround record of a job: for the owner, the job's helper and the job's customer. */

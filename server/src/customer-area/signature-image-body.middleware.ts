@@ -1,11 +1,10 @@
 import type { NextFunction, Request, Response } from 'express';
 import express from 'express';
+import type { BodyReadError } from '../photos/image-type';
 import { MAX_SIGNATURE_IMAGE_BYTES } from './customer-area.service';
 
 /** The upload route's request, with what reading its raw body went wrong with (if anything). */
-export type SignatureImageRequest = Request & {
-  signatureBodyError?: { status?: number; type?: string };
-};
+export type SignatureImageRequest = Request & { signatureBodyError?: BodyReadError };
 
 const readRaw = express.raw({ type: () => true, limit: MAX_SIGNATURE_IMAGE_BYTES });
 

@@ -10,7 +10,7 @@ import type { Actor } from '../auth/current-user.decorator';
 import { AppException, notFound } from '../common/app.exception';
 import type { EnvironmentVariables } from '../config/env.validation';
 import { StoredBlob } from './blob.entity';
-import { sniffImage } from './image-type';
+import { checkImage, IMAGE_MIMES, type ImageMime } from './image-type';
 
 /** Largest image accepted (photos from a phone camera fit well below it). */
 export const MAX_BLOB_BYTES = 15 * 1024 * 1024;
@@ -40,12 +40,15 @@ export class BlobStore {
 
   /**
    * Stores an upload after checking that its bytes hash to the address given and that it
-   * is a JPEG, PNG or WebP image. Storing the same image again changes nothing.
+   * is an image of one of the types accepted (by its content, within the pixel limits: see
+   * checkImage). Its type is kept with it and is what it is served as. Storing the same image
+   * again changes nothing.
    */
   async put(
     actor: Actor,
     sha256: string,
     body: Buffer,
+    accept: readonly ImageMime[] = IMAGE_MIMES,
   ): Promise<{ blob: BlobDto; created: boolean }> {
     const actual = createHash('sha256').update(body).digest('hex');
     if (actual !== sha256) {
@@ -56,14 +59,7 @@ export class BlobStore {
         { expected: sha256, actual },
       );
     }
-    const mime = sniffImage(body);
-    if (!mime) {
-      throw new AppException(
-        HttpStatus.UNSUPPORTED_MEDIA_TYPE,
-        'unsupported-image',
-        'Only JPEG, PNG or WebP images can be uploaded; this file is none of these',
-      );
-    }
+    const { mime } = await checkImage(body, accept);
     const existing = await this.find(this.db.manager, actor.businessId, sha256);
     const path = this.path(actor.businessId, sha256);
     if (existing && (await exists(path))) {

@@ -5,6 +5,7 @@ import { type Actor, CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { AppException } from '../common/app.exception';
 import { type BlobDto, BlobStore, MAX_BLOB_BYTES, SHA256_HEX } from './blob-store.service';
+import { bodyReadProblem, IMAGE_EXTENSIONS, IMAGE_MIMES } from './image-type';
 import type { BlobUploadRequest } from './raw-blob-body.middleware';
 
 function checkSha(sha256: string): void {
@@ -23,8 +24,9 @@ export class BlobsController {
   constructor(private readonly blobs: BlobStore) {}
 
   /**
-   * Uploads an image (the raw bytes as the body) under its SHA-256: JPEG, PNG or WebP, at
-   * most 15 MB. 201 when stored, 200 when it was already there.
+   * Uploads an image (the raw bytes as the body) under its SHA-256: JPEG, PNG or WebP by its
+   * content (whatever its declared type), at most 15 MB (413), 12,000 px a side and 50
+   * megapixels (422). 201 when stored, 200 when it was already there.
    */
   @Roles('owner', 'tech')
   @ApiConsumes('image/jpeg', 'image/png', 'image/webp')
@@ -36,27 +38,13 @@ export class BlobsController {
     @Res({ passthrough: true }) res: Response,
   ): Promise<BlobDto> {
     checkSha(sha256);
-    const err = req.blobBodyError;
-    if (err?.status === 413 || err?.type === 'entity.too.large') {
-      throw new AppException(
-        HttpStatus.PAYLOAD_TOO_LARGE,
-        'blob-too-large',
-        `An image may be at most ${MAX_BLOB_BYTES / 1024 / 1024} MB`,
-      );
-    }
-    if (err) {
-      throw new AppException(
-        HttpStatus.BAD_REQUEST,
-        'blob-unreadable',
-        'The upload could not be read; send it again',
-      );
-    }
+    if (req.blobBodyError) throw bodyReadProblem(req.blobBodyError, 'A photo', MAX_BLOB_BYTES);
     const body: unknown = req.body;
     if (!Buffer.isBuffer(body)) {
       throw new AppException(
         HttpStatus.UNSUPPORTED_MEDIA_TYPE,
         'unsupported-image',
-        'Send the image bytes as the body with an image content type (JPEG, PNG or WebP)',
+        'Send the image bytes as the body (JPEG, PNG or WebP)',
       );
     }
     if (body.length === 0) {
@@ -67,7 +55,10 @@ export class BlobsController {
     return blob;
   }
 
-  /** The image, served with its stored type; never sniffed, shown inline. */
+  /**
+   * The image, served as the type found in its bytes at upload (never a type the client
+   * declared), with nosniff and inline under a name the server makes (`<sha256>.png`).
+   */
   @Get(':sha256')
   async get(
     @CurrentUser() actor: Actor,
@@ -79,9 +70,14 @@ export class BlobsController {
     res.setHeader('X-Content-Type-Options', 'nosniff');
     res.setHeader('Cache-Control', 'private, max-age=31536000, immutable');
     res.setHeader('ETag', `"${blob.sha256}"`);
+    // Only the image types stored are ever served as such; anything else (a row from before
+    // the content check) is a download, never something a browser would run or render.
+    const mime = IMAGE_MIMES.find((m) => m === blob.mime);
     return new StreamableFile(stream, {
-      type: blob.mime,
-      disposition: 'inline',
+      type: mime ?? 'application/octet-stream',
+      disposition: mime
+        ? `inline; filename="${blob.sha256}.${IMAGE_EXTENSIONS[mime]}"`
+        : `attachment; filename="${blob.sha256}"`,
       length: blob.bytes,
     });
   }
