@@ -1,4 +1,6 @@
 import { ArgumentsHost, BadRequestException, HttpStatus, NotFoundException } from '@nestjs/common';
+import express from 'express';
+import { Readable } from 'node:stream';
 import { QueryFailedError } from 'typeorm';
 import { AllExceptionsFilter } from './all-exceptions.filter';
 import { AppException } from './app.exception';
@@ -139,6 +141,73 @@ describe('AllExceptionsFilter', () => {
       expect(capture(new Error('Connection to the payment service refused'))).toMatchObject({
         status: 500,
       });
+    });
+  });
+
+  describe('a body the parsers could not read answers its 4xx in the one shape', () => {
+    /** What Express's own parser passes on for this request (an http-errors error). */
+    function parserError(
+      parser: express.RequestHandler,
+      headers: Record<string, string>,
+      body: string,
+    ): Promise<unknown> {
+      const req = Object.assign(Readable.from([Buffer.from(body)]), {
+        headers: { 'content-length': String(Buffer.byteLength(body)), ...headers },
+        method: 'POST',
+        url: '/',
+      });
+      return new Promise((done) => {
+        void parser(req as unknown as express.Request, {} as express.Response, (err?: unknown) =>
+          done(err),
+        );
+      });
+    }
+
+    it.each([
+      ['broken JSON', { 'content-type': 'application/json' }, '{"a":', 400, 'invalid-json'],
+      [
+        'an unknown charset',
+        { 'content-type': 'application/json; charset=latin1' },
+        '{}',
+        415,
+        'unsupported-media-type',
+      ],
+      [
+        'an unknown content encoding',
+        { 'content-type': 'application/json', 'content-encoding': 'x-unknown' },
+        '{}',
+        415,
+        'unsupported-media-type',
+      ],
+      [
+        'a body over the limit',
+        { 'content-type': 'application/json' },
+        JSON.stringify({ a: 'z'.repeat(200_000) }),
+        413,
+        'too-large',
+      ],
+      [
+        'garbage said to be gzip',
+        { 'content-type': 'application/json', 'content-encoding': 'gzip' },
+        'not gzip at all',
+        400,
+        'bad-request',
+      ],
+    ])('%s', async (_what, headers, body, status, code) => {
+      const err = await parserError(express.json(), headers, body);
+      expect(err).toBeInstanceOf(Error);
+      const r = capture(err);
+      expect(r.status).toBe(status);
+      expect(r.body).toEqual({ statusCode: status, code, message: expect.any(String) as unknown });
+      // Our words, not the parser's (which may quote the body).
+      expect((r.body as { message: string }).message).not.toBe((err as Error).message);
+    });
+
+    it('keeps an error that only looks like one a 500 (no expose, or not a 4xx)', () => {
+      expect(capture(Object.assign(new Error('x'), { status: 400 })).status).toBe(500);
+      expect(capture(Object.assign(new Error('x'), { status: 502, expose: true })).status).toBe(
+        500,
+      );
     });
   });
 });

@@ -108,6 +108,37 @@ function describe(e: unknown): string {
   return typeof code === 'string' ? `${code} ${e.message}` : e.message;
 }
 
+/** What the body parsers say of a body they refused, by their error's `type`. */
+const UNREADABLE: Record<string, { code: string; message: string }> = {
+  'entity.parse.failed': { code: 'invalid-json', message: 'The body is not valid JSON' },
+  'entity.too.large': { code: 'too-large', message: 'The body is too large' },
+  'charset.unsupported': {
+    code: 'unsupported-media-type',
+    message: 'The body must be sent as UTF-8',
+  },
+  'encoding.unsupported': {
+    code: 'unsupported-media-type',
+    message: 'The body must be sent uncompressed, or gzip, deflate or br',
+  },
+};
+
+/**
+ * A request Express's body parsers could not read (bad JSON, too large, an unknown charset or
+ * content encoding, cut off): their http-errors carry a 4xx `status` and `expose: true`. Answered
+ * in the one shape with our own words, never with the parser's message.
+ */
+function unreadableRequest(e: unknown): ErrorBody | null {
+  if (typeof e !== 'object' || e === null || e instanceof HttpException) return null;
+  const { status, expose, type } = e as { status?: unknown; expose?: unknown; type?: unknown };
+  if (expose !== true || typeof status !== 'number' || status < 400 || status > 499) return null;
+  const known = typeof type === 'string' ? UNREADABLE[type] : undefined;
+  return {
+    statusCode: status,
+    code: known?.code ?? codeForStatus[status] ?? 'bad-request',
+    message: known?.message ?? 'The request could not be read',
+  };
+}
+
 /** The one error shape for any error; also used by the sync push to record refusals. */
 export function toErrorBody(exception: unknown): ErrorBody {
   if (exception instanceof HttpException) {
@@ -157,6 +188,8 @@ export function toErrorBody(exception: unknown): ErrorBody {
       return { statusCode: 400, code: 'bad-request', message: 'A value is not valid' };
     }
   }
+  const unreadable = unreadableRequest(exception);
+  if (unreadable) return unreadable;
   if (isDatabaseDown(exception)) {
     return {
       statusCode: HttpStatus.SERVICE_UNAVAILABLE,
