@@ -11,9 +11,14 @@ import {
 
 const b64url = (v: object) => Buffer.from(JSON.stringify(v)).toString('base64url');
 
-function forgeToken(payload: object, header: object, key: string | null): string {
+function forgeToken(
+  payload: object,
+  header: object,
+  key: string | null,
+  hash: 'sha256' | 'sha512' = 'sha256',
+): string {
   const head = `${b64url(header)}.${b64url(payload)}`;
-  const sig = key ? createHmac('sha256', key).update(head).digest('base64url') : '';
+  const sig = key ? createHmac(hash, key).update(head).digest('base64url') : '';
   return `${head}.${sig}`;
 }
 
@@ -162,6 +167,53 @@ describe('sign-up, sign-in and sessions', () => {
       expect(res.body.code).toBe(name === 'expired' ? 'token-expired' : 'not-signed-in');
     }
     await http(app).get('/api/auth/me').expect(401);
+  });
+
+  it('refuses tokens signed with the right key but another algorithm, no expiry, or claims not its own', async () => {
+    const owner = await signUpOwner(app, 'tokens2');
+    const other = await signUpOwner(app, 'tokens2-other');
+    const now = Math.floor(Date.now() / 1000);
+    const payload = {
+      sub: owner.user.id,
+      bid: owner.user.businessId,
+      role: 'owner',
+      iat: now,
+      exp: now + 600,
+    };
+    const { exp: _exp, ...noExp } = payload;
+    const cases = {
+      // RFC 8725 §2.1, §3.1: only the one algorithm the server signs with is taken.
+      hs512: forgeToken(payload, { alg: 'HS512', typ: 'JWT' }, TEST_JWT_SECRET, 'sha512'),
+      // Key confusion: an RS256 header over an HMAC made with the secret.
+      rs256: forgeToken(payload, { alg: 'RS256', typ: 'JWT' }, TEST_JWT_SECRET),
+      // The server never issues a token without an expiry: one is never good forever.
+      noExpiry: forgeToken(noExp, { alg: 'HS256', typ: 'JWT' }, TEST_JWT_SECRET),
+      // A real person of another business, or a role that is not one of ours.
+      otherBusiness: forgeToken(
+        { ...payload, bid: other.user.businessId },
+        { alg: 'HS256', typ: 'JWT' },
+        TEST_JWT_SECRET,
+      ),
+      unknownRole: forgeToken(
+        { ...payload, role: 'admin' },
+        { alg: 'HS256', typ: 'JWT' },
+        TEST_JWT_SECRET,
+      ),
+      // A refresh token is no access token.
+      refreshAsAccess: owner.refreshToken,
+    };
+    const control = forgeToken(payload, { alg: 'HS256', typ: 'JWT' }, TEST_JWT_SECRET);
+    await http(app).get('/api/auth/me').auth(control, { type: 'bearer' }).expect(200);
+    for (const [name, token] of Object.entries(cases)) {
+      const res = await http(app).get('/api/auth/me').auth(token, { type: 'bearer' });
+      expect({ name, status: res.status, code: res.body.code as unknown }).toEqual({
+        name,
+        status: 401,
+        code: 'not-signed-in',
+      });
+    }
+    // Nor is an access token a refresh token.
+    await http(app).post('/api/auth/refresh').send({ refreshToken: owner.accessToken }).expect(401);
   });
 });
 

@@ -30,4 +30,24 @@ describe('sign-in rate limit', () => {
       .send({ email: uniqueEmail('other'), password: 'guess' })
       .expect(401);
   });
+
+  it('limits sign-up the same way: repeated sign-ups for one e-mail end in 429', async () => {
+    const email = uniqueEmail('signup-limited');
+    const body = {
+      businessName: 'Test limit',
+      name: 'Test Owner',
+      email,
+      password: 'long enough 1',
+    };
+    await http(app).post('/api/auth/sign-up').send(body).expect(201);
+    // Probing whether an e-mail has an account is slowed down as guessing a password is.
+    await http(app).post('/api/auth/sign-up').send(body).expect(409);
+    await http(app).post('/api/auth/sign-up').send(body).expect(409);
+    const blocked = await http(app).post('/api/auth/sign-up').send(body).expect(429);
+    expect(blocked.body).toMatchObject({ statusCode: 429, code: 'too-many-requests' });
+    await http(app)
+      .post('/api/auth/sign-up')
+      .send({ ...body, email: uniqueEmail('signup-other') })
+      .expect(201);
+  });
 });

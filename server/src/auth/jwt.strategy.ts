@@ -14,6 +14,8 @@ export interface AccessTokenPayload {
   role: Role;
   /** customer id, for the `customer` role only */
   cid?: string;
+  /** Expiry (seconds since the epoch); every token the server signs has one. */
+  exp?: number;
 }
 
 /** Verifies the access token: HS256 only (an `alg: none` or foreign-key token is refused). */
@@ -36,6 +38,8 @@ export class JwtStrategy extends PassportStrategy(Strategy) {
     if (!payload.sub || !payload.bid || !payload.role || !ROLES.includes(payload.role)) {
       return false;
     }
+    // The verifier checks `exp` only when present: a token without one would never expire.
+    if (typeof payload.exp !== 'number') return false;
     if (payload.role === 'customer' && !payload.cid) return false;
     const active = await this.db
       .getRepository(User)
