@@ -54,6 +54,59 @@ export class PhotoUnreadableError extends Error {
   }
 }
 
+/**
+ * The largest file the phone tries to open. A camera picture is 2–12 MB; decoding one far
+ * larger (or a panorama of hundreds of megapixels) can take all the phone's memory and close
+ * the app with the job open.
+ */
+export const MAX_PICKED_BYTES = 40 * 1024 * 1024;
+
+export const NOT_A_PICTURE =
+  'This file is not a picture the phone can read (a JPEG, PNG or WebP photo). Nothing was saved; pick a photo or take one with the camera.';
+
+const megabytes = (bytes: number) => (bytes / 1024 / 1024).toFixed(1);
+
+/**
+ * Whether the first bytes are those of a picture a phone's browser decodes: JPEG (FF D8 FF),
+ * PNG (its 8-byte signature, PNG spec §5.2), WebP (RIFF…WEBP, RFC 9649), GIF (GIF87a/GIF89a),
+ * HEIC/AVIF (an ISO BMFF `ftyp` box, ISO/IEC 14496-12), BMP ("BM"). A text file renamed
+ * photo.jpg is none of these, whatever its name or declared type.
+ */
+export function looksLikePicture(head: Uint8Array): boolean {
+  const at = (offset: number, ...bytes: number[]) =>
+    head.length >= offset + bytes.length && bytes.every((b, i) => head[offset + i] === b);
+  const text = (offset: number, s: string) => at(offset, ...[...s].map((c) => c.charCodeAt(0)));
+  return (
+    at(0, 0xff, 0xd8, 0xff) ||
+    at(0, 0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a) ||
+    (text(0, 'RIFF') && text(8, 'WEBP')) ||
+    text(0, 'GIF87a') ||
+    text(0, 'GIF89a') ||
+    text(4, 'ftyp') ||
+    text(0, 'BM')
+  );
+}
+
+/**
+ * Refuses, before any decoding, a file that is far too large or is no picture at all, with
+ * words for the person (PhotoUnreadableError).
+ */
+export async function checkPicked(file: Blob): Promise<void> {
+  if (file.size === 0) throw new PhotoUnreadableError(NOT_A_PICTURE);
+  if (file.size > MAX_PICKED_BYTES) {
+    throw new PhotoUnreadableError(
+      `This picture is ${megabytes(file.size)} MB, too large for the phone to open (at most ${MAX_PICKED_BYTES / 1024 / 1024} MB). Nothing was saved; take it with the camera instead.`,
+    );
+  }
+  let head: Uint8Array;
+  try {
+    head = new Uint8Array(await file.slice(0, 16).arrayBuffer());
+  } catch {
+    throw new PhotoUnreadableError();
+  }
+  if (!looksLikePicture(head)) throw new PhotoUnreadableError(NOT_A_PICTURE);
+}
+
 /** Makes a camera picture smaller (JPEG, long edge ≤ maxEdge) before it is stored. */
 export async function resizeImage(
   file: Blob,
@@ -61,11 +114,12 @@ export async function resizeImage(
   quality: number = DEFAULT_QUALITY,
   deps: ResizeDeps = browserResizeDeps,
 ): Promise<ResizedImage> {
+  await checkPicked(file);
   let image: DecodedImage;
   try {
     image = await deps.decode(file);
   } catch {
-    throw new PhotoUnreadableError();
+    throw new PhotoUnreadableError(NOT_A_PICTURE);
   }
   try {
     const size = fitWithin(image.width, image.height, maxEdge);
