@@ -1,13 +1,19 @@
 import { IonContent, IonPage } from '@ionic/react';
+import { useEffect, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { BrandHeader } from '../components/BrandHeader';
 import { SignInForm } from '../features/auth/components/SignInForm';
 import { useSignIn } from '../features/auth/hooks/useSignIn';
 import { authErrorMessage } from '../features/auth/model/authMessages';
+import { clearSignInNote, readSignInNote } from '../features/auth/model/signInNote';
+import { Notice } from '../components/Notice';
 import { startBusinessPath } from '../features/shell/model/access';
 
 export default function SignInPage() {
   const signIn = useSignIn();
+  // A word left for this screen (the business was deleted): shown once, then let go.
+  const [note] = useState(readSignInNote);
+  useEffect(() => clearSignInNote(), []);
   return (
     <IonPage>
       <IonContent>
@@ -16,6 +22,7 @@ export default function SignInPage() {
             title="Sign in"
             lead="Today's cars, panels and timers — with or without signal."
           />
+          {note ? <Notice tone="done">{note}</Notice> : null}
           <SignInForm
             onSubmit={(input) => signIn.start(input)}
             pending={signIn.pending}

@@ -62,7 +62,7 @@ export function useLedger(month: Month, kind: EntryKind | null) {
 }
 
 /** Saves a file the browser was handed, under the server's name. */
-function saveFile(blob: Blob, filename: string): void {
+export function saveFile(blob: Blob, filename: string): void {
   const url = URL.createObjectURL(blob);
   const a = document.createElement('a');
   a.href = url;

@@ -11,6 +11,7 @@ import {
   type BusinessDraft,
   type Problems,
 } from '../model/businessForm';
+import { BusinessDataSection } from './BusinessDataSection';
 import { BusinessSection } from './BusinessSection';
 import { PricesSection } from './PricesSection';
 import { TaxSection } from './TaxSection';
@@ -31,6 +32,7 @@ const PARTS = [
   ['pp-settings-labour', 'Labour cost'],
   ['pp-settings-units', 'Units'],
   ['pp-settings-team', 'Team'],
+  ['pp-settings-data', 'Your data'],
 ] as const;
 
 const NO_SIGNAL =
@@ -38,7 +40,8 @@ const NO_SIGNAL =
 
 /**
  * The owner's Settings: the business, prices and factors, tax and rounding, deposit, travel
- * and drive times, waits, labour cost, units, and the team. One Save sends the form; it is
+ * and drive times, waits, labour cost, units, the team, and the business's data (a copy, or
+ * deleting it). One Save sends the form; it is
  * checked on the phone first, the server's word on any field is shown under that field, and
  * nothing typed is lost when a save fails.
  */
@@ -192,6 +195,7 @@ export function SettingsScreen() {
       </form>
 
       <TeamSection />
+      <BusinessDataSection businessName={business.name} />
     </div>
   );
 }
