@@ -20,6 +20,8 @@ export interface SyncStatusView {
   syncing: boolean;
   /** Why the last try failed, in words. */
   lastError: string | null;
+  /** The last try found the server unreachable (no answer, or its 503) while online. */
+  serverAway?: boolean;
 }
 
 export interface SyncContextValue {

@@ -17,7 +17,8 @@ import {
 } from '../test/localDb';
 import { MemoryStorage } from '../test/memoryStorage';
 import { aSession } from '../test/sessions';
-import { SyncEngine, type SyncLock } from './engine';
+import { badgeFor } from '../features/shell/components/SyncBadge';
+import { SERVER_AWAY_WORDS, SyncEngine, type SyncLock } from './engine';
 import { createHttpTransport, type SyncTransport } from './transport';
 
 const noLock: SyncLock = (work) => work();
@@ -114,7 +115,8 @@ describe('SyncEngine', () => {
     expect(await engine.syncNow()).toBe(false);
     expect(server.applied).toHaveLength(2);
     expect(await db.outbox.count()).toBe(2);
-    expect(engine.getState().lastError).toBe('No signal: changes wait on this phone.');
+    // The phone had a signal; the server did not answer.
+    expect(engine.getState()).toMatchObject({ lastError: SERVER_AWAY_WORDS, serverAway: true });
 
     expect(await engine.syncNow()).toBe(true);
     const clientId = await db.getMeta('clientId');
@@ -350,6 +352,57 @@ describe('SyncEngine', () => {
     expect(engine.getState()).toMatchObject({ failures: 0, lastError: null });
     // All well again: the next sync comes after the regular interval.
     expect(engine.getState().nextAttemptAt! - Date.now()).toBe(30_000);
+  });
+
+  it("keeps the outbox through the server's 503 (its database away), says so in words and retries by itself", async () => {
+    vi.useFakeTimers({ toFake: ['setTimeout', 'clearTimeout', 'Date'] });
+    vi.setSystemTime(T0);
+    const db = phone(freshIndexedDb(), anOwner, () => Date.now());
+    const engine = new SyncEngine({
+      db,
+      transport: transportFor(server),
+      lock: noLock,
+      isOnline: () => true,
+      random: () => 1,
+      windowTarget: new EventTarget(),
+      documentTarget: Object.assign(new EventTarget(), { visibilityState: 'visible' as const }),
+    });
+    engines.push(engine);
+    await mutate(db, 'customer.create', { id: ids.a, name: 'Tamsin Vale' });
+    await mutate(db, 'customer.update', { id: ids.a, notes: 'Side gate' });
+    server.failNext('push', 'database-down', 2);
+
+    engine.start();
+    await settled(engine);
+    expect(await db.outbox.count()).toBe(2);
+    expect(server.applied).toHaveLength(0);
+    expect(engine.getState()).toMatchObject({
+      failures: 1,
+      serverAway: true,
+      lastError: SERVER_AWAY_WORDS,
+    });
+    expect(engine.getState().nextAttemptAt! - Date.now()).toBe(2_000);
+    expect(badgeFor({ state: 'waiting', pending: 2, rejected: [], serverAway: true }).words).toBe(
+      '2 waiting, server unreachable',
+    );
+
+    // Still away at the first retry: kept, and the wait grows.
+    await vi.advanceTimersByTimeAsync(2_000);
+    await settled(engine);
+    expect(await db.outbox.count()).toBe(2);
+    expect(engine.getState().failures).toBe(2);
+    expect(engine.getState().nextAttemptAt! - Date.now()).toBe(4_000);
+
+    // Back: the same mutations go, once each, with no tap from the detailer.
+    await vi.advanceTimersByTimeAsync(4_000);
+    await settled(engine);
+    expect(await db.outbox.count()).toBe(0);
+    expect(server.applied).toEqual([
+      expect.stringMatching(/:1 customer\.create$/),
+      expect.stringMatching(/:2 customer\.update$/),
+    ]);
+    expect(engine.getState()).toMatchObject({ failures: 0, serverAway: false, lastError: null });
+    expect(server.row('customers', ids.a)).toMatchObject({ notes: 'Side gate' });
   });
 
   it('syncs when the phone comes back online', async () => {

@@ -27,6 +27,11 @@ export interface SyncEngineState {
   failures: number;
   /** When the next attempt is due (this phone's clock), if one is scheduled. */
   nextAttemptAt: number | null;
+  /**
+   * The last attempt failed because the server did not answer, or answered that it cannot
+   * work just now (502/503/504, e.g. its database is away) — while the phone had a signal.
+   */
+  serverAway: boolean;
 }
 
 export interface SyncEngineOptions {
@@ -78,6 +83,7 @@ export class SyncEngine {
     lastError: null,
     failures: 0,
     nextAttemptAt: null,
+    serverAway: false,
   };
   private readonly listeners = new Set<() => void>();
   private running: Promise<boolean> | null = null;
@@ -200,19 +206,27 @@ export class SyncEngine {
     this.clearTimers();
     this.setState({ nextAttemptAt: null });
     if (!this.isOnline()) {
-      this.setState({ failures: this.state.failures + 1, lastError: describeSyncError(null) });
+      this.setState({
+        failures: this.state.failures + 1,
+        lastError: describeSyncError(null),
+        serverAway: false,
+      });
       return false;
     }
     this.setState({ syncing: true });
     try {
       await this.lock(() => this.cycle());
-      this.setState({ syncing: false, failures: 0, lastError: null });
+      this.setState({ syncing: false, failures: 0, lastError: null, serverAway: false });
       return true;
     } catch (error) {
+      // The outbox is untouched (a push's answer is applied only when it comes); the loop
+      // schedules the next try with backoff.
+      const online = this.isOnline();
       this.setState({
         syncing: false,
         failures: this.state.failures + 1,
-        lastError: describeSyncError(error),
+        lastError: describeSyncError(error, online),
+        serverAway: online && isServerAway(error),
       });
       return false;
     }
@@ -352,9 +366,20 @@ function isRefusedForGood(error: unknown): boolean {
   return [400, 413, 415, 422].includes(error.status);
 }
 
-/** Why a sync did not go through, in the detailer's words. */
-export function describeSyncError(error: unknown): string {
-  if (error === null || isNetworkError(error)) return 'No signal: changes wait on this phone.';
+/** The server did not answer, or said it cannot work just now (a gateway's or its own 503). */
+export function isServerAway(error: unknown): boolean {
+  return isNetworkError(error) || (isApiError(error) && [502, 503, 504].includes(error.status));
+}
+
+export const SERVER_AWAY_WORDS =
+  'The Panelpass server cannot be reached just now: changes wait on this phone and go by themselves when it is back.';
+
+/** Why a sync did not go through, in the detailer's words (never an error code). */
+export function describeSyncError(error: unknown, online = false): string {
+  if (error === null || (isNetworkError(error) && !online)) {
+    return 'No signal: changes wait on this phone.';
+  }
+  if (isServerAway(error)) return SERVER_AWAY_WORDS;
   if (isQuotaError(error)) return OUT_OF_SPACE_MESSAGE;
   if (isApiError(error, 401)) return 'Signed out on the server: sign in again to send changes.';
   if (isApiError(error) && error.status >= 500) {

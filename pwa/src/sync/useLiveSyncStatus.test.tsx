@@ -73,6 +73,11 @@ describe('sync words', () => {
   it('says the badge in words: all saved, waiting to send, needs a look', () => {
     expect(badgeFor(view({})).words).toBe('All saved');
     expect(badgeFor(view({ state: 'waiting', pending: 3 })).words).toBe('3 waiting to send');
+    expect(badgeFor(view({ state: 'waiting', pending: 3, serverAway: true })).words).toBe(
+      '3 waiting, server unreachable',
+    );
+    // Nothing waits: all is saved even while the server is away.
+    expect(badgeFor(view({ serverAway: true })).words).toBe('All saved');
     const one = view({ state: 'needs-look', rejected: [{} as SyncStatusView['rejected'][number]] });
     expect(badgeFor(one).words).toBe('1 needs a look');
   });

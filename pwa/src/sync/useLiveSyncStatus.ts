@@ -43,5 +43,6 @@ export function useLiveSyncStatus(db: LocalDb, engine: SyncEngine): SyncStatusVi
     online,
     syncing: run.syncing,
     lastError: run.lastError,
+    serverAway: run.serverAway,
   };
 }

@@ -18,7 +18,7 @@ import type { DbOwner } from '../db/localDb';
 import type { RowStore } from '../db/rowStore';
 import { json } from './sessions';
 
-type Fault = 'down' | 'lost-answer';
+type Fault = 'down' | 'lost-answer' | 'database-down';
 type Route = 'push' | 'pull' | 'blob';
 
 /**
@@ -26,7 +26,8 @@ type Route = 'push' | 'pull' | 'blob';
  * mutations once each and in order (through the same command effects the phone uses), keeps
  * each client's lastMutationId, bumps one version sequence on every write, keeps tombstones,
  * and answers pulls by version cursor in pages. Faults can be queued per route: `down`
- * (no answer, nothing done) and `lost-answer` (done and committed, then the answer is lost).
+ * (no answer, nothing done), `lost-answer` (done and committed, then the answer is lost) and
+ * `database-down` (the server's 503 while its database is away, nothing done).
  */
 export class FakeSyncServer {
   readonly tables = new Map<SyncTable, Map<string, SyncRow>>(
@@ -190,6 +191,14 @@ export class FakeSyncServer {
     if (!route) return json(404, { statusCode: 404, code: 'not-found', message: 'No such route' });
     const fault = this.faults[route].shift();
     if (fault === 'down') throw new TypeError('Failed to fetch');
+    if (fault === 'database-down') {
+      return json(503, {
+        statusCode: 503,
+        code: 'database-unavailable',
+        message:
+          'The server cannot reach its database just now; your changes are kept on the phone.',
+      });
+    }
     let response: Response;
     if (route === 'push' && method === 'POST') {
       const body = JSON.parse(init?.body as string) as PushRequest;

@@ -5,7 +5,9 @@ import { SyncSheet } from '../../../sync/components/SyncSheet';
 import type { SyncStatusView } from '../../../sync/context';
 import { useSyncStatus } from '../../../sync/useSyncStatus';
 
-export function badgeFor(status: Pick<SyncStatusView, 'state' | 'pending' | 'rejected'>): {
+export function badgeFor(
+  status: Pick<SyncStatusView, 'state' | 'pending' | 'rejected' | 'serverAway'>,
+): {
   words: string;
   icon: string;
   tone: string;
@@ -15,7 +17,9 @@ export function badgeFor(status: Pick<SyncStatusView, 'state' | 'pending' | 'rej
       return { words: 'All saved', icon: checkmarkCircleOutline, tone: 'done' };
     case 'waiting':
       return {
-        words: `${status.pending} waiting to send`,
+        words: status.serverAway
+          ? `${status.pending} waiting, server unreachable`
+          : `${status.pending} waiting to send`,
         icon: cloudUploadOutline,
         tone: 'wait',
       };
