@@ -27,6 +27,15 @@ setupIonicReact({ mode: 'md', rippleEffect: false, animated: !reducedMotion });
 const target = redirectFor(window.location.pathname, sessionStore.get()?.user.role ?? null);
 if (target !== null) window.history.replaceState(null, '', target);
 
+// A signed-in start opens on Today, read from the phone's database: wake IndexedDB (cold, it
+// takes a few hundred ms to open) and fetch the tab shell and Today's screen side by side now,
+// not one after the other as they render (the lazy pages then find them loaded).
+if (sessionStore.get() && window.location.pathname === '/today') {
+  void indexedDB.databases?.().catch(() => undefined);
+  void import('./app/MainTabs');
+  void import('./pages/TodayPage');
+}
+
 const root = document.getElementById('root');
 if (!root) throw new Error('index.html has no #root element');
 
