@@ -1,4 +1,4 @@
-import { HttpStatus, ValidationError, ValidationPipe } from '@nestjs/common';
+import { type ArgumentMetadata, HttpStatus, ValidationError, ValidationPipe } from '@nestjs/common';
 import { AppException } from './app.exception';
 
 interface FieldProblem {
@@ -21,9 +21,41 @@ export function validationFailed(errors: ValidationError[]): AppException {
   return new AppException(HttpStatus.BAD_REQUEST, 'validation-failed', message, details);
 }
 
+/**
+ * How deep a body or query may nest objects and arrays. Our deepest real input (a sync push:
+ * mutations → args → settings → lists → items) is well under it; class-transformer walks a
+ * value recursively and overflows the stack on a few thousand levels.
+ */
+export const MAX_INPUT_DEPTH = 32;
+
+/** Whether a value nests objects or arrays deeper than `limit` (walked without recursion). */
+export function nestedDeeperThan(value: unknown, limit: number): boolean {
+  const stack: [unknown, number][] = [[value, 0]];
+  while (stack.length > 0) {
+    const [v, depth] = stack.pop()!;
+    if (v === null || typeof v !== 'object') continue;
+    if (depth + 1 > limit) return true;
+    for (const child of Object.values(v as object)) stack.push([child, depth + 1]);
+  }
+  return false;
+}
+
 /** Whitelist, refuse unknown fields, transform; errors name the field and the rule. */
+class AppValidationPipe extends ValidationPipe {
+  override async transform(value: unknown, metadata: ArgumentMetadata): Promise<unknown> {
+    if (nestedDeeperThan(value, MAX_INPUT_DEPTH)) {
+      throw new AppException(
+        HttpStatus.BAD_REQUEST,
+        'too-deep',
+        `Objects and lists may be nested at most ${MAX_INPUT_DEPTH} levels deep`,
+      );
+    }
+    return (await super.transform(value, metadata)) as unknown;
+  }
+}
+
 export function createValidationPipe(): ValidationPipe {
-  return new ValidationPipe({
+  return new AppValidationPipe({
     whitelist: true,
     forbidNonWhitelisted: true,
     transform: true,
