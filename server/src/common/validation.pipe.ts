@@ -35,7 +35,7 @@ export function nestedDeeperThan(value: unknown, limit: number): boolean {
     const [v, depth] = stack.pop()!;
     if (v === null || typeof v !== 'object') continue;
     if (depth + 1 > limit) return true;
-    for (const child of Object.values(v as object)) stack.push([child, depth + 1]);
+    for (const child of Object.values(v)) stack.push([child, depth + 1]);
   }
   return false;
 }
