@@ -201,6 +201,7 @@ describe('faults: the database and the server going away', () => {
     await sleep(500);
     const health = await fetch(`${server.url}/api/health`);
     expect(health.status).toBe(503);
+    expect(health.headers.get('retry-after')).toMatch(/^\d+$/);
     expect(await health.json()).toMatchObject({ database: 'down' });
     const read = await call('/api/customers', token);
     expect(read).toMatchObject({

@@ -4,6 +4,7 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import type { Response } from 'express';
 import { DataSource } from 'typeorm';
 import { Public } from '../auth/public.decorator';
+import { RETRY_AFTER_SECONDS } from '../common/all-exceptions.filter';
 
 export class HealthDto {
   status: 'ok' | 'degraded';
@@ -38,7 +39,9 @@ export class HealthController {
       );
       return { status: 'ok', database: 'up', migrations: Number(rows[0]?.n ?? 0) };
     } catch {
-      res.status(HttpStatus.SERVICE_UNAVAILABLE);
+      res
+        .status(HttpStatus.SERVICE_UNAVAILABLE)
+        .setHeader('Retry-After', String(RETRY_AFTER_SECONDS));
       return { status: 'degraded', database: 'down', migrations: 0 };
     }
   }

@@ -63,7 +63,12 @@ export class ServerProcess {
     const keep = (chunk: Buffer) => (this.output += chunk.toString());
     this.child.stdout?.on('data', keep);
     this.child.stderr?.on('data', keep);
-    for (let i = 0; i < 200; i++) {
+    // Up to 30 s: on a busy machine (2 cores shared with other work) Nest takes a while to boot.
+    const child = this.child;
+    for (let i = 0; i < 600; i++) {
+      if (child.exitCode !== null) {
+        throw new Error(`server exited with ${child.exitCode} while starting\n${this.output}`);
+      }
       try {
         const res = await fetch(`${this.url}/api/health`);
         if (res.ok) return;
@@ -72,7 +77,7 @@ export class ServerProcess {
       }
       await new Promise((r) => setTimeout(r, 50));
     }
-    throw new Error('server did not start');
+    throw new Error(`server did not start\n${this.output}`);
   }
 
   /** SIGKILL: no shutdown hooks, open transactions are cut off. */
