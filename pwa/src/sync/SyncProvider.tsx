@@ -3,11 +3,21 @@ import type { CommandName } from '@panelpass/shared';
 import { apiClient, sessionStore } from '../app/services';
 import { useSession } from '../features/auth/hooks/useSession';
 import { LocalDb, type DbOwner } from '../db/localDb';
-import { mutate } from '../db/mutate';
 import { SyncContext, type SyncContextValue } from './context';
-import { SyncEngine } from './engine';
-import { createHttpTransport } from './transport';
+import type { SyncEngine } from './engine';
 import { useLiveSyncStatus } from './useLiveSyncStatus';
+
+/**
+ * The engine (push, pull, rebase) and the commands' local effects are loaded beside the first
+ * screen, not before it: Today reads the phone's database and needs neither to show. Both are
+ * precached by the service worker, so this works offline too.
+ */
+const loadEngine = () =>
+  Promise.all([import('./engine'), import('./transport')]).then(([engine, transport]) => ({
+    SyncEngine: engine.SyncEngine,
+    createHttpTransport: transport.createHttpTransport,
+  }));
+const loadMutate = () => import('../db/mutate').then((m) => m.mutate);
 
 interface Runtime {
   db: LocalDb;
@@ -51,16 +61,23 @@ export function SyncProvider({ children }: { children: ReactNode }) {
   useEffect(() => {
     if (!userId || !businessId || !role) return;
     const db = new LocalDb({ userId, businessId, role });
-    const engine = new SyncEngine({
-      db,
-      transport: createHttpTransport({ api: apiClient, sessionStore }),
+    let ended = false;
+    let engine: SyncEngine | null = null;
+    void loadEngine().then(({ SyncEngine, createHttpTransport }) => {
+      if (ended) return;
+      engine = new SyncEngine({
+        db,
+        transport: createHttpTransport({ api: apiClient, sessionStore }),
+      });
+      engine.start();
+      setRuntime({ db, engine });
+      void askForPersistentStorageOnce(db).catch(() => undefined);
     });
-    engine.start();
-    setRuntime({ db, engine });
-    void askForPersistentStorageOnce(db).catch(() => undefined);
     return () => {
+      ended = true;
       setRuntime(null);
-      void engine.stop().finally(() => db.close());
+      if (engine) void engine.stop().finally(() => db.close());
+      else db.close();
     };
   }, [userId, businessId, role]);
 
@@ -86,12 +103,14 @@ function LiveSync({
   const actions = useMemo(
     (): Omit<SyncContextValue, 'status'> => ({
       db,
-      mutate: (name, args) => mutate(db, name, args),
+      mutate: async (name, args) => (await loadMutate())(db, name, args),
       syncNow: () => engine.syncNow(),
       async retryRejected(id) {
         const rejected = await db.rejected.get(id);
         if (!rejected) return;
-        await mutate(db, rejected.name as CommandName, rejected.args as never);
+        await (
+          await loadMutate()
+        )(db, rejected.name as CommandName, rejected.args as never);
         await db.rejected.delete(id);
       },
       async discardRejected(id) {

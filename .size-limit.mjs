@@ -1,0 +1,29 @@
+// The JavaScript budget of the first two screens (sign-in, then Today once signed in), checked
+// by `npx size-limit` in scripts/test right after the PWA is built. The files are read from
+// Vite's build manifest (pwa/scripts/first-screens.mjs): the entry, the SignIn, MainTabs and
+// Today route chunks and every chunk they import statically.
+//
+// How size-limit 12 with @size-limit/file counts: each file gzipped on its own at level 9
+// (node:zlib createGzip({ level: 9 })), the sizes summed; "kB" is 1000 bytes (bytes-iec:
+// "200 kB" = 200,000 bytes, "KiB" would be 1024). pwa/scripts/report-size.mjs and
+// scripts/bench/bundle count the same way.
+//
+// The goal is 200 kB. The limit below is a ratchet at today's figure (≈259 kB after moving
+// Ionic's overlays, other screens' icons, the sync engine and the commands out of the startup
+// chunks): it stops the bundle from growing while the rest of the way to 200 kB is worked on.
+// Lower it with every step down; never raise it without saying why in the commit.
+import { join, relative } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { firstScreenFiles, firstScreensGoalKb, pwaDist } from './pwa/scripts/first-screens.mjs';
+
+const root = fileURLToPath(new URL('.', import.meta.url));
+const dist = pwaDist();
+
+export default [
+  {
+    name: `sign-in + Today JavaScript, gzipped (goal ${firstScreensGoalKb} kB)`,
+    path: firstScreenFiles(dist).map((file) => relative(root, join(dist, file))),
+    gzip: true,
+    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '262 kB',
+  },
+];
