@@ -17,6 +17,15 @@ const SOURCE_WORDS = {
   defaults: 'our defaults until your settings are seen',
 } as const;
 
+/** "Tuesday 4 May" in the phone's language; one formatter, made once (it is costly to make). */
+let dayFormat: Intl.DateTimeFormat | null = null;
+const dayWords = () =>
+  (dayFormat ??= new Intl.DateTimeFormat(undefined, {
+    weekday: 'long',
+    day: 'numeric',
+    month: 'long',
+  }));
+
 /**
  * The day at a glance: what needs doing now across every job (overdue first), the timers
  * running, and today's visits in order with the drive between them. Everything is read from
@@ -38,11 +47,7 @@ export function TodayScreen() {
     return (jobId: string) => byId.get(jobId);
   }, [jobs]);
 
-  const date = new Date(now).toLocaleDateString(undefined, {
-    weekday: 'long',
-    day: 'numeric',
-    month: 'long',
-  });
+  const date = dayWords().format(now);
   const count = visits.length;
 
   return (

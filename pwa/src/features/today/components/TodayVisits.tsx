@@ -7,8 +7,12 @@ import type { JobSummary } from '../../jobs/model/jobSummary';
 import type { DriveSettings } from '@panelpass/shared';
 import { dayLegs } from '../model/dayPlan';
 
+/** One formatter for every visit's times, made once (it is costly to make). */
+let timeFormat: Intl.DateTimeFormat | null = null;
+
 function time(ms: number): string {
-  return new Date(ms).toLocaleTimeString(undefined, { hour: '2-digit', minute: '2-digit' });
+  timeFormat ??= new Intl.DateTimeFormat(undefined, { hour: '2-digit', minute: '2-digit' });
+  return timeFormat.format(ms);
 }
 
 /**
