@@ -3,6 +3,7 @@ import { BusinessRecords1764600001000 } from './migrations/1764600001000-Busines
 import { Sync1764600002000 } from './migrations/1764600002000-Sync';
 import { HandoverMoney1764600005000 } from './migrations/1764600005000-HandoverMoney';
 import { FollowUps1764600015000 } from './migrations/1764600015000-FollowUps';
+import { LedgerIndexes1764600023000 } from './migrations/1764600023000-LedgerIndexes';
 
 /** Every migration in order. Append only; never edit one that has landed. */
 export const migrations = [
@@ -11,4 +12,5 @@ export const migrations = [
   Sync1764600002000,
   HandoverMoney1764600005000,
   FollowUps1764600015000,
+  LedgerIndexes1764600023000,
 ];

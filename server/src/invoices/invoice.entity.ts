@@ -6,6 +6,7 @@ import { Job } from '../jobs/job.entity';
 @Entity('invoices')
 @Index('invoices_sync_idx', ['businessId', 'version'])
 @Index('invoices_job_id_idx', ['jobId'])
+@Index('invoices_business_issued_idx', ['businessId', 'issuedAt'])
 @Unique('invoices_business_id_number_key', ['businessId', 'number'])
 export class Invoice extends SyncedEntity {
   @Column({ type: 'uuid' })

@@ -6,6 +6,7 @@ import { SyncedEntity } from '../database/synced.entity';
 @Index('payments_sync_idx', ['businessId', 'version'])
 @Index('payments_job_id_idx', ['jobId'])
 @Index('payments_provider_intent_idx', ['providerIntent'])
+@Index('payments_business_paid_idx', ['businessId', 'paidAt'])
 @Unique('payments_business_id_op_id_key', ['businessId', 'opId'])
 export class Payment extends SyncedEntity {
   @Column({ type: 'uuid', nullable: true })

@@ -7,6 +7,7 @@ import { Vehicle } from '../vehicles/vehicle.entity';
 @Entity('quotes')
 @Index('quotes_sync_idx', ['businessId', 'version'])
 @Index('quotes_customer_id_idx', ['customerId'])
+@Index('quotes_business_created_idx', ['businessId', 'createdAt'])
 export class Quote extends SyncedEntity {
   @Column({ type: 'uuid' })
   customerId: string;
