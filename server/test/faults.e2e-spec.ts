@@ -280,6 +280,8 @@ describe('faults: the database and the server going away', () => {
     // The same process throughout: it neither exited nor was restarted, and still answers.
     expect(server.pid).toBe(pid);
     expect((await fetch(`${server.url}/api/health`)).status).toBe(200);
+    // Its log has the outage in one line per refused request, and no crash of a background job.
+    expect(server.output).toMatch(/database unavailable: /);
     expect(server.output).not.toMatch(/unhandled|uncaught/i);
 
     console.log(
