@@ -1,0 +1,174 @@
+// API latency under 50 connections for one business with a year of data. Run by scripts/bench/api.
+//
+// Side by side in one run, each for API_BENCH_SECONDS with API_BENCH_CONNECTIONS clients:
+//   trivial    GET /api/health/live (the same Express/Nest stack, no database, no sign-in)
+//   pull       GET /api/sync/pull from a cursor of a few minutes ago (as a phone pulls every few minutes)
+//   pull-day   the same from the cursor a phone held last night (all of today's work)
+//   job        GET /api/jobs/:id (one of today's jobs, with names and amount due)
+//   workspace  GET /api/jobs/:id/workspace (the job page's whole field record)
+//   list       GET /api/jobs?from=&to=&limit=50 (a fortnight around today, first page)
+// and, reported apart, one first full pull (cursor 0, page after page) as a new phone does.
+import { randomUUID } from 'node:crypto';
+import { performance } from 'node:perf_hooks';
+import pg from 'pg';
+import { api, hammer, ms } from './autocannon-lib.mjs';
+import { addJobs, addPools, dayFrom, tableCounts } from './datagen.mjs';
+
+const url = process.env.BENCH_URL;
+const SECONDS = Number(process.env.API_BENCH_SECONDS ?? 10);
+const CONNECTIONS = Number(process.env.API_BENCH_CONNECTIONS ?? 50);
+const WARMUP = Number(process.env.API_BENCH_WARMUP ?? 2);
+const YEARS = Number(process.env.API_BENCH_YEARS ?? 1);
+const GOAL_MS = 50;
+
+const session = await api(url, '/api/auth/sign-up', {
+  method: 'POST',
+  body: {
+    businessName: 'Bench Detailing',
+    name: 'Bench Owner',
+    email: `bench-${randomUUID().slice(0, 8)}@bench.example`,
+    password: 'bench password 123',
+  },
+});
+const token = session.accessToken;
+const businessId = session.user.businessId;
+
+// 1. A year of a solo detailer's work, then today's work after the cursor a phone held.
+const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+await db.connect();
+const today = new Date().toISOString().slice(0, 10);
+const customers = 450 * YEARS;
+let t0 = performance.now();
+await addPools(db, [businessId], { customers });
+await addJobs(db, [businessId], {
+  fromDay: dayFrom(today, -365 * YEARS),
+  toDay: dayFrom(today, -1),
+  today,
+  customers,
+});
+await addJobs(db, [businessId], {
+  fromDay: dayFrom(today, 1),
+  toDay: dayFrom(today, 14),
+  today,
+  customers,
+});
+const { rows: cur } = await db.query(`SELECT last_value::int AS v FROM sync_version`);
+const cursor = cur[0].v;
+await addJobs(db, [businessId], { fromDay: today, toDay: today, today, customers });
+// The last few minutes at the car: two panels finished, a timer started, a note on the job.
+const { rows: cur2 } = await db.query(`SELECT last_value::int AS v FROM sync_version`);
+const recentCursor = cur2[0].v;
+const { rows: working } = await db.query(
+  `SELECT id FROM jobs WHERE business_id = $1 AND stage = 'correction' ORDER BY window_start DESC LIMIT 1`,
+  [businessId],
+);
+const workingJob = working[0].id;
+await db.query(
+  `UPDATE job_panels SET state = 'done' WHERE id IN (
+     SELECT id FROM job_panels WHERE job_id = $1 ORDER BY position LIMIT 2)`,
+  [workingJob],
+);
+await db.query(
+  `INSERT INTO timers (id, business_id, job_id, kind, label, started_at, ends_at, started_by)
+   SELECT gen_random_uuid(), $1, $2, 'dwell', 'Polish dwell', now(), now() + interval '10 minutes',
+     (SELECT id FROM users WHERE business_id = $1 LIMIT 1)`,
+  [businessId, workingJob],
+);
+await db.query(`UPDATE jobs SET notes = notes || ' Hood done.' WHERE id = $1`, [workingJob]);
+await db.query('VACUUM ANALYZE'); // as autovacuum would have by then
+const genSeconds = (performance.now() - t0) / 1000;
+const counts = await tableCounts(db);
+const totalRows = Object.values(counts).reduce((a, b) => a + b, 0);
+const { rows: todays } = await db.query(
+  `SELECT id FROM jobs WHERE business_id = $1 AND window_start >= $2::date
+   AND window_start < $2::date + 1 ORDER BY window_start`,
+  [businessId, today],
+);
+await db.end();
+const jobId = todays[1]?.id ?? todays[0]?.id;
+if (!jobId) throw new Error('no job today (a weekend?): nothing to ask for');
+console.log(
+  `data:      ${totalRows} synced rows for one business, ${YEARS} year(s), made in ${genSeconds.toFixed(1)} s ` +
+    `(jobs ${counts.jobs}, panels ${counts.job_panels}, readings ${counts.film_readings}, passes ${counts.correction_passes}, ` +
+    `photos ${counts.photos}, payments ${counts.payments}, invoices ${counts.invoices})`,
+);
+
+// 2. A first full pull, page after page (reported apart: a new phone does it once).
+t0 = performance.now();
+let full = 0;
+let pages = 0;
+for (let c = 0; ; pages++) {
+  const res = await api(url, `/api/sync/pull?cursor=${c}&scope=0&clientId=${randomUUID()}`, {
+    token,
+  });
+  for (const list of Object.values(res.changes)) full += list.length;
+  c = res.cursor;
+  if (!res.more) {
+    pages++;
+    break;
+  }
+}
+const fullSeconds = (performance.now() - t0) / 1000;
+if (full !== totalRows) throw new Error(`full pull gave ${full} rows of ${totalRows}`);
+
+const clientId = randomUUID();
+const pullPath = `/api/sync/pull?cursor=${recentCursor}&scope=0&clientId=${clientId}`;
+const dayPullPath = `/api/sync/pull?cursor=${cursor}&scope=0&clientId=${clientId}`;
+const rowsOf = async (path) => {
+  const res = await api(url, path, { token });
+  const n = Object.values(res.changes).reduce((k, l) => k + l.length, 0);
+  if (n === 0 || res.more) throw new Error(`${path}: ${n} rows, more ${res.more}`);
+  return n;
+};
+console.log(
+  `full pull: ${full} rows in ${pages} pages in ${fullSeconds.toFixed(1)} s (one phone, first sign-in)`,
+);
+console.log(
+  `pull:      ${await rowsOf(pullPath)} rows since a few minutes ago (what a phone pulls every few minutes); ` +
+    `pull-day: ${await rowsOf(dayPullPath)} rows since last night`,
+);
+
+const list = `/api/jobs?from=${dayFrom(today, -7)}T00:00:00Z&to=${dayFrom(today, 8)}T00:00:00Z&limit=50`;
+const endpoints = [
+  ['trivial', '/api/health/live', null],
+  ['pull', pullPath, token],
+  ['pull-day', dayPullPath, token],
+  ['job', `/api/jobs/${jobId}`, token],
+  ['workspace', `/api/jobs/${jobId}/workspace`, token],
+  ['list', list, token],
+];
+
+// 3. Each endpoint warmed up, then hammered, one after the other in this run.
+const results = {};
+for (const [name, path, auth] of endpoints) {
+  // Waits until the server has finished what the previous endpoint left queued.
+  await api(url, path, { token: auth });
+  if (WARMUP > 0) await hammer(url, path, { token: auth, connections: 10, seconds: WARMUP });
+  results[name] = await hammer(url, path, {
+    token: auth,
+    connections: CONNECTIONS,
+    seconds: SECONDS,
+  });
+  const r = results[name];
+  console.log(`  ${name}: ${r.rps.toFixed(0)} req/s, p50 ${ms(r.p50)} ms, p99 ${ms(r.p99)} ms`);
+}
+
+const base = results.trivial;
+console.log(
+  `\n${CONNECTIONS} connections, ${SECONDS} s each (2 shared cores; other work on the machine shares them)`,
+);
+console.log('endpoint     req/s     p50 ms   p99 ms   p99 ÷ trivial   req/s ÷ trivial');
+for (const [name, , ,] of endpoints) {
+  const r = results[name];
+  console.log(
+    `${name.padEnd(10)} ${r.rps.toFixed(0).padStart(7)} ${ms(r.p50).padStart(10)} ${ms(r.p99).padStart(8)} ${(r.p99 / base.p99).toFixed(1).padStart(12)}× ${(r.rps / base.rps).toFixed(2).padStart(15)}`,
+  );
+}
+const worst = Math.max(
+  ...['pull', 'pull-day', 'job', 'workspace', 'list'].map((n) => results[n].p99),
+);
+console.log(
+  `api: p99 pull ${ms(results.pull.p99)} ms, pull-day ${ms(results['pull-day'].p99)} ms, job ${ms(results.job.p99)} ms, workspace ${ms(results.workspace.p99)} ms, ` +
+    `list ${ms(results.list.p99)} ms, trivial ${ms(base.p99)} ms at ${CONNECTIONS} connections ` +
+    `(goal < ${GOAL_MS} ms) ${worst < GOAL_MS ? 'ok' : 'MISSED'}`,
+);
