@@ -2,7 +2,7 @@ import { fileURLToPath } from 'node:url';
 import react from '@vitejs/plugin-react';
 import { defineConfig } from 'vite';
 import { VitePWA } from 'vite-plugin-pwa';
-import { deferIonicOverlays, iconPerModule } from './vite.startup';
+import { deferIonicOverlays, iconPerModule } from './vite.startup.ts';
 
 const sharedEntry = fileURLToPath(new URL('../shared/src/index.ts', import.meta.url));
 

@@ -1,0 +1,145 @@
+// Lighthouse 12 (its default mobile settings: simulated slow 4G, 4× CPU slowdown, a phone's
+// screen) on the built app served by our own server, in Debian's Chromium, nothing fetched
+// from outside. Run by scripts/bench/lighthouse, which starts the server with the demo data.
+//
+//  - sign-in: a first visit (Lighthouse clears the site's storage and cache before each run);
+//  - Today: signed in as the demo owner in the same browser first, then audited without a
+//    storage reset — the installed app a detailer opens (service worker and session kept).
+//
+// Each page is audited RUNS times (default 3); the median of each figure is printed.
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import lighthouse from 'lighthouse';
+import { chromium } from 'playwright-core';
+
+const baseUrl = process.env.BENCH_URL;
+if (!baseUrl) throw new Error('BENCH_URL is not set (run scripts/bench/lighthouse)');
+const runs = Number(process.env.RUNS ?? 3);
+const chromePath = process.env.CHROME_PATH ?? '/usr/bin/chromium';
+const owner = { email: 'owner@heronwake.example', password: 'detail-demo-1' };
+
+const goals = {
+  performance: { min: 0.95, words: '≥ 0.95' },
+  lcpMs: { max: 2000, words: '≤ 2.0 s' },
+  tbtMs: { max: 150, words: '≤ 150 ms' },
+  cls: { max: 0.05, words: '≤ 0.05' },
+  accessibility: { min: 0.95, words: '≥ 0.95' },
+};
+
+const profile = mkdtempSync(join(tmpdir(), 'panelpass-lighthouse-'));
+const context = await chromium.launchPersistentContext(profile, {
+  executablePath: chromePath,
+  headless: true,
+  args: [
+    '--headless=new',
+    '--no-sandbox',
+    '--remote-debugging-port=0',
+    // Nothing from outside: no name lookups but loopback, no background services.
+    '--host-resolver-rules=MAP * ~NOTFOUND, EXCLUDE 127.0.0.1',
+    '--disable-background-networking',
+    '--disable-component-update',
+    '--disable-sync',
+    '--no-first-run',
+  ],
+});
+
+try {
+  const port = Number(readFileSync(join(profile, 'DevToolsActivePort'), 'utf8').split('\n')[0]);
+
+  async function audit(url, disableStorageReset) {
+    const result = await lighthouse(url, {
+      port,
+      output: 'json',
+      logLevel: 'error',
+      onlyCategories: ['performance', 'accessibility'],
+      disableStorageReset,
+    });
+    const lhr = result?.lhr;
+    if (!lhr) throw new Error(`Lighthouse gave no result for ${url}`);
+    if (lhr.runtimeError) throw new Error(`${url}: ${lhr.runtimeError.message}`);
+    const a = lhr.audits;
+    return {
+      performance: lhr.categories.performance.score,
+      lcpMs: a['largest-contentful-paint'].numericValue,
+      tbtMs: a['total-blocking-time'].numericValue,
+      cls: a['cumulative-layout-shift'].numericValue,
+      accessibility: lhr.categories.accessibility.score,
+      finalUrl: lhr.finalDisplayedUrl,
+      failing: Object.values(a)
+        .filter((x) => x.score !== null && x.score < 0.9 && x.scoreDisplayMode !== 'informative')
+        .map((x) => x.id),
+    };
+  }
+
+  async function signIn() {
+    const page = await context.newPage();
+    await page.goto(`${baseUrl}/sign-in`);
+    const form = page.getByRole('form', { name: 'Sign in' });
+    await form.getByLabel('E-mail').fill(owner.email);
+    await form.getByLabel('Password', { exact: true }).fill(owner.password);
+    await form.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(`${baseUrl}/today`);
+    await page.getByRole('heading', { level: 1, name: 'Today', exact: true }).waitFor();
+    // Let the service worker finish precaching, as on a phone that has used the app.
+    await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
+    await page.waitForTimeout(1500);
+    await page.close();
+  }
+
+  const pages = [
+    { name: 'sign-in', url: `${baseUrl}/sign-in`, keepStorage: false, before: null },
+    { name: 'Today', url: `${baseUrl}/today`, keepStorage: true, before: signIn },
+  ];
+
+  const median = (values) => {
+    const sorted = [...values].sort((x, y) => x - y);
+    return sorted[Math.floor(sorted.length / 2)];
+  };
+  const fmt = {
+    performance: (v) => v.toFixed(2),
+    lcpMs: (v) => `${(v / 1000).toFixed(2)} s`,
+    tbtMs: (v) => `${Math.round(v)} ms`,
+    cls: (v) => v.toFixed(3),
+    accessibility: (v) => v.toFixed(2),
+  };
+  const meets = (key, v) => ('min' in goals[key] ? v >= goals[key].min : v <= goals[key].max);
+
+  console.log(`Lighthouse 12 (mobile: simulated slow 4G, 4× CPU), ${runs} runs a page, medians`);
+  console.log(`${baseUrl}, Chromium ${context.browser()?.version() ?? ''}`);
+  const summary = [];
+  let allOk = true;
+  for (const target of pages) {
+    if (target.before) await target.before();
+    const results = [];
+    for (let i = 0; i < runs; i += 1) results.push(await audit(target.url, target.keepStorage));
+    const wrongPlace = results.find((r) => !r.finalUrl.startsWith(target.url));
+    if (wrongPlace) throw new Error(`${target.name} ended on ${wrongPlace.finalUrl}`);
+    console.log('');
+    console.log(`${target.name} (${target.url})`);
+    const parts = [];
+    for (const key of Object.keys(goals)) {
+      const values = results.map((r) => r[key]);
+      const m = median(values);
+      const ok = meets(key, m);
+      allOk &&= ok;
+      console.log(
+        `  ${key.padEnd(13)} ${fmt[key](m).padStart(9)}  (goal ${goals[key].words}) ${ok ? 'ok' : 'MISSED'}` +
+          `   runs: ${values.map(fmt[key]).join(', ')}`,
+      );
+      parts.push(
+        `${key === 'performance' ? 'perf' : key === 'accessibility' ? 'a11y' : key.replace(/Ms$/, '').toUpperCase()} ${fmt[key](m)}`,
+      );
+    }
+    const failing = [...new Set(results.flatMap((r) => r.failing))];
+    if (failing.length) console.log(`  audits under 0.9 in some run: ${failing.join(', ')}`);
+    summary.push(`${target.name} ${parts.join(' ').replace(/ s\b/g, 's').replace(/ ms\b/g, 'ms')}`);
+  }
+  console.log('');
+  console.log(
+    `lighthouse: ${summary.join('; ')} (medians of ${runs}; goals perf ≥ 0.95, LCP ≤ 2.0 s, TBT ≤ 150 ms, CLS ≤ 0.05, a11y ≥ 0.95) ${allOk ? 'ok' : 'MISSED'}`,
+  );
+} finally {
+  await context.close();
+  rmSync(profile, { recursive: true, force: true });
+}
