@@ -17,7 +17,7 @@ import { api, ms, sample } from './autocannon-lib.mjs';
 import { addBusinesses, addJobs, addPools, dayFrom, tableCounts } from './datagen.mjs';
 
 const url = process.env.BENCH_URL;
-const BUSINESSES = Number(process.env.SCALE_BUSINESSES ?? 1000);
+const BUSINESSES = Number(process.env.SCALE_BUSINESSES ?? 300);
 const SIZES = [
   ...new Set([Math.max(1, Math.round(BUSINESSES / 100)), Math.round(BUSINESSES / 10), BUSINESSES]),
 ];
