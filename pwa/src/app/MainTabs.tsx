@@ -59,7 +59,9 @@ function SignedInTabs() {
           const Page = pages[tab.id];
           return <Route key={tab.id} path={`${tab.path}/*`} element={<Page />} />;
         })}
-        {user ? <Route path={`${settingsPath}/*`} element={<SettingsPage />} /> : null}
+        {/* No route rather than a null child: Ionic's outlet reads each child's type, and a
+            session ending on Settings (sign-out, the business deleted) would crash it. */}
+        {user ? <Route path={`${settingsPath}/*`} element={<SettingsPage />} /> : []}
       </IonRouterOutlet>
       {/* Alarms and the timer strip, above the tab bar (ion-tabs' bottom slot). */}
       {user ? <TimerDock slot="bottom" /> : null}

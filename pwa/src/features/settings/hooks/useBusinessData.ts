@@ -29,9 +29,12 @@ export function useBusinessData() {
     onSuccess: async (_, name) => {
       // The business is gone on the server: this phone's copy goes too, then the session.
       leaveSignInNote(deletedNote(name));
-      await sync?.forgetThisPhone().catch(() => undefined);
-      queryClient.clear();
+      // The session ends first (the sync engine stops and the shell leaves for the sign-in
+      // screen), then the cache and this phone's database are emptied.
+      const local = sync?.db;
       sessionStore.set(null);
+      queryClient.clear();
+      await local?.delete().catch(() => undefined);
     },
   });
   return { download, remove };
