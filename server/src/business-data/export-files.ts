@@ -69,7 +69,7 @@ export function csvReadme(manifest: {
     'One CSV file per table (RFC 4180: comma-separated, fields with a comma, quote or line',
     'break in double quotes, a quote inside doubled, lines ended by CRLF, UTF-8, a header row',
     'of column names). Values are written as the database writes them as text: times in',
-    'ISO 8601 with their UTC offset, amounts in minor units (cents), JSON columns as JSON.',
+    'UTC as 2026-03-04 10:00:00+00, amounts in minor units (cents), JSON columns as JSON.',
     'An empty field means no value. Text that a spreadsheet would run as a formula',
     "(starting with = + - @, a tab or CR) starts with an apostrophe (') added here.",
     'manifest.json has the same counts; the JSON export holds the same rows exactly.',
