@@ -22,6 +22,7 @@ import {
   ValidateIf,
   ValidateNested,
 } from 'class-validator';
+import { IsDecimalNumber } from '../../common/dto/decimal';
 
 // The business's prices and preferences. Field names follow the pricing API of
 // @panelpass/shared (priceMinor, upToKm, feeMinor, basis, rounding, roundToMinor…);
@@ -66,7 +67,7 @@ export class ServiceSettingDto {
   priceMinor: number;
 
   /** Labour: minutes per m² of panel (`m2`) or minutes for the whole job (`job`). */
-  @IsNumber({ maxDecimalPlaces: 2, allowNaN: false, allowInfinity: false })
+  @IsDecimalNumber({ maxDecimalPlaces: 2, allowNaN: false, allowInfinity: false })
   @Min(0)
   @Max(600)
   labourMinutes: number;
@@ -93,7 +94,7 @@ export class FactorSettingDto {
   name: string;
 
   /** e.g. 1.25; at most 4 decimals. */
-  @IsNumber(
+  @IsDecimalNumber(
     { maxDecimalPlaces: 4, allowNaN: false, allowInfinity: false },
     { message: 'factor must be a number with at most 4 decimals' },
   )
@@ -118,7 +119,7 @@ export class AddOnSettingDto {
   priceMinor: number;
 
   /** Minutes of labour for the whole job. */
-  @IsNumber({ maxDecimalPlaces: 2, allowNaN: false, allowInfinity: false })
+  @IsDecimalNumber({ maxDecimalPlaces: 2, allowNaN: false, allowInfinity: false })
   @Min(0)
   @Max(600)
   labourMinutes: number;
@@ -130,7 +131,7 @@ export class AddOnSettingDto {
 
 export class TravelBandSettingDto {
   /** The band covers distances up to and including this (km). */
-  @IsNumber({ maxDecimalPlaces: 1, allowNaN: false, allowInfinity: false })
+  @IsDecimalNumber({ maxDecimalPlaces: 1, allowNaN: false, allowInfinity: false })
   @Min(0)
   @Max(1000)
   upToKm: number;
@@ -205,7 +206,7 @@ export class UnitsSettingDto {
 
 export class WaitsSettingDto {
   /** Default keep-dry window after protection (hours). */
-  @IsNumber({ maxDecimalPlaces: 1, allowNaN: false, allowInfinity: false })
+  @IsDecimalNumber({ maxDecimalPlaces: 1, allowNaN: false, allowInfinity: false })
   @Min(0)
   @Max(240)
   keepDryHours: number;
@@ -219,12 +220,12 @@ export class WaitsSettingDto {
 
 export class DriveSettingDto {
   /** Road distance ÷ straight-line distance, e.g. 1.3. */
-  @IsNumber({ maxDecimalPlaces: 2, allowNaN: false, allowInfinity: false })
+  @IsDecimalNumber({ maxDecimalPlaces: 2, allowNaN: false, allowInfinity: false })
   @Min(1)
   @Max(3)
   roadFactor: number;
 
-  @IsNumber({ maxDecimalPlaces: 1, allowNaN: false, allowInfinity: false })
+  @IsDecimalNumber({ maxDecimalPlaces: 1, allowNaN: false, allowInfinity: false })
   @Min(5)
   @Max(150)
   averageSpeedKmh: number;
@@ -303,7 +304,7 @@ export class BusinessSettingsDto {
   chipPriceMinor: number;
 
   /** Labour per chip (minutes), for the estimate. */
-  @IsNumber({ maxDecimalPlaces: 2, allowNaN: false, allowInfinity: false })
+  @IsDecimalNumber({ maxDecimalPlaces: 2, allowNaN: false, allowInfinity: false })
   @Min(0)
   @Max(600)
   chipLabourMinutes: number;

@@ -2,7 +2,6 @@ import { Type } from 'class-transformer';
 import {
   IsDate,
   IsInt,
-  IsNumber,
   IsOptional,
   IsPositive,
   IsString,
@@ -13,6 +12,7 @@ import {
   ValidateIf,
 } from 'class-validator';
 import { LeaveOut } from '../../workspace/dto/optional.dto';
+import { IsDecimalNumber } from '../../common/dto/decimal';
 
 export class AddChipBodyDto {
   /** Made by the client. */
@@ -32,7 +32,10 @@ export class AddChipBodyDto {
   number?: number;
 
   /** Across its widest point (mm). */
-  @IsNumber({ maxDecimalPlaces: 1 }, { message: 'sizeMm must be a number of mm (one decimal)' })
+  @IsDecimalNumber(
+    { maxDecimalPlaces: 1 },
+    { message: 'sizeMm must be a number of mm (one decimal)' },
+  )
   @IsPositive({ message: 'sizeMm must be above zero' })
   @Max(100)
   sizeMm: number;

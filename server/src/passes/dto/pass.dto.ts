@@ -4,7 +4,6 @@ import {
   IsDate,
   IsIn,
   IsInt,
-  IsNumber,
   IsOptional,
   IsPositive,
   IsString,
@@ -24,6 +23,7 @@ import {
 } from '@panelpass/shared';
 import { VersionedArgs } from '../../common/dto/version.dto';
 import { LeaveOut } from '../../workspace/dto/optional.dto';
+import { IsDecimalNumber } from '../../common/dto/decimal';
 
 /** The steps of the clear-coat budget's removal table (shared `DEFAULT_REMOVAL_PER_PASS`). */
 export const PASS_STEPS = Object.keys(DEFAULT_REMOVAL_PER_PASS);
@@ -122,7 +122,7 @@ export class UpdatePanelBodyDto {
   /** Estimated clear coat (µm) for the budget; null to go back to the default. */
   @IsOptional()
   @ValidateIf((_, v) => v !== null)
-  @IsNumber({ maxDecimalPlaces: 2 }, { message: 'clearEstimateUm must be a number of µm' })
+  @IsDecimalNumber({ maxDecimalPlaces: 2 }, { message: 'clearEstimateUm must be a number of µm' })
   @IsPositive({ message: 'clearEstimateUm must be above zero' })
   @Max(500)
   clearEstimateUm?: number | null;
@@ -133,7 +133,7 @@ export class UpdatePanelBodyDto {
   testSpotNote?: string;
 
   @LeaveOut()
-  @IsNumber({ maxDecimalPlaces: 3 }, { message: 'areaM2 must be a number of m²' })
+  @IsDecimalNumber({ maxDecimalPlaces: 3 }, { message: 'areaM2 must be a number of m²' })
   @Min(0)
   @Max(50)
   areaM2?: number;

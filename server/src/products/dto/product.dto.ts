@@ -20,6 +20,7 @@ import {
 } from 'class-validator';
 import { VersionedArgs } from '../../common/dto/version.dto';
 import { LeaveOut } from '../../workspace/dto/optional.dto';
+import { IsDecimalNumber } from '../../common/dto/decimal';
 
 const trim = ({ value }: { value: unknown }) => (typeof value === 'string' ? value.trim() : value);
 
@@ -207,28 +208,28 @@ export class ProductFieldsDto {
 
   /** Stock on hand at creation (later changes go through stock movements). */
   @LeaveOut()
-  @IsNumber({ maxDecimalPlaces: 3 })
+  @IsDecimalNumber({ maxDecimalPlaces: 3 })
   @Min(0)
   @Max(99_999_999)
   stockQty?: number;
 
   /** How much one field use takes (in `unit`); 0 = not counted. */
   @LeaveOut()
-  @IsNumber({ maxDecimalPlaces: 3 })
+  @IsDecimalNumber({ maxDecimalPlaces: 3 })
   @Min(0)
   @Max(9_999_999)
   amountPerUse?: number;
 
   /** Cost of one `unit` in minor units (may carry fractions of a cent). */
   @LeaveOut()
-  @IsNumber({ maxDecimalPlaces: 4 })
+  @IsDecimalNumber({ maxDecimalPlaces: 4 })
   @Min(0)
   @Max(99_999_999)
   unitCostMinor?: number;
 
   /** Stock at or below this is low. */
   @LeaveOut()
-  @IsNumber({ maxDecimalPlaces: 3 })
+  @IsDecimalNumber({ maxDecimalPlaces: 3 })
   @Min(0)
   @Max(99_999_999)
   lowStockAt?: number;
@@ -281,7 +282,10 @@ export class StockAdjustBodyDto {
   id: string;
 
   /** Added (+) or taken (−), in the product's unit. */
-  @IsNumber({ maxDecimalPlaces: 3 }, { message: 'qty must be a number with up to 3 decimals' })
+  @IsDecimalNumber(
+    { maxDecimalPlaces: 3 },
+    { message: 'qty must be a number with up to 3 decimals' },
+  )
   @NotEquals(0, { message: 'qty must not be zero' })
   @Min(-99_999_999)
   @Max(99_999_999)
@@ -292,7 +296,7 @@ export class StockAdjustBodyDto {
 
   /** For a restock: what one unit cost this time; it becomes the product's unit cost. */
   @IsOptional()
-  @IsNumber({ maxDecimalPlaces: 4 })
+  @IsDecimalNumber({ maxDecimalPlaces: 4 })
   @Min(0)
   @Max(99_999_999)
   unitCostMinor?: number;

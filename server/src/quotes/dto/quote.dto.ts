@@ -7,7 +7,6 @@ import {
   IsDate,
   IsIn,
   IsInt,
-  IsNumber,
   IsOptional,
   IsString,
   IsUUID,
@@ -19,6 +18,7 @@ import {
   ValidateNested,
 } from 'class-validator';
 import { IdArgs, VersionedArgs } from '../../common/dto/version.dto';
+import { IsDecimalNumber } from '../../common/dto/decimal';
 
 const SLUG = /^[a-z0-9][a-z0-9-]{0,39}$/;
 
@@ -79,13 +79,13 @@ export class QuoteInputsDto {
 
   /** The travel band chosen, by its `upToKm`; or give `distanceKm` instead. */
   @IsOptional()
-  @IsNumber({ maxDecimalPlaces: 1, allowNaN: false, allowInfinity: false })
+  @IsDecimalNumber({ maxDecimalPlaces: 1, allowNaN: false, allowInfinity: false })
   @Min(0)
   travelBand?: number;
 
   /** Distance to the customer (km); the band is looked up. Or give `travelBand` instead. */
   @IsOptional()
-  @IsNumber({ maxDecimalPlaces: 1, allowNaN: false, allowInfinity: false })
+  @IsDecimalNumber({ maxDecimalPlaces: 1, allowNaN: false, allowInfinity: false })
   @Min(0)
   @Max(10_000)
   distanceKm?: number;
