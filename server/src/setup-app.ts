@@ -8,6 +8,7 @@ import { existsSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { corsOptions, refuseOtherOrigins } from './common/cors';
 import type { EnvironmentVariables } from './config/env.validation';
+import { chooseEncoding, servePrecompressed } from './static/precompressed';
 
 export function buildOpenApi(app: INestApplication): OpenAPIObject {
   const config = new DocumentBuilder()
@@ -70,6 +71,8 @@ export function setupApp(app: NestExpressApplication, pwaDist?: string): void {
         `PWA_DIST=${pwaDist} has no index.html; build the app first (npm run build -w pwa)`,
       );
     }
+    // The brotli or gzip copy written at build time when the browser takes it (same headers).
+    app.use(servePrecompressed(root));
     // The service worker and index.html must always be revalidated; hashed assets are immutable.
     app.use(
       express.static(root, {
@@ -84,7 +87,12 @@ export function setupApp(app: NestExpressApplication, pwaDist?: string): void {
     app.use((req: express.Request, res: express.Response, next: express.NextFunction) => {
       if (req.method !== 'GET' || req.path.startsWith('/api')) return next();
       res.setHeader('Cache-Control', 'no-cache');
-      res.sendFile(join(root, 'index.html'));
+      res.removeHeader('Content-Encoding');
+      const index = join(root, 'index.html');
+      chooseEncoding(req, res, index).then(
+        (copy) => res.sendFile(copy ?? index),
+        (error: unknown) => next(error),
+      );
     });
   }
 }
