@@ -1,7 +1,12 @@
 import type { CanonicalValue, CommandArgs } from '@panelpass/shared';
 import { ownBuffer, recordHash, sha256Hex } from './hashing';
 import type { LocalDb, OutboxEntry } from './localDb';
-import { mutate } from './mutate';
+
+/**
+ * The command catalogue is loaded at the moment of the change, not with the screens that can
+ * record one (every signed-in screen, Today included). It is precached, so offline too.
+ */
+const loadMutate = () => import('./mutate').then((m) => m.mutate);
 
 export { recordHash, sha256Hex } from './hashing';
 
@@ -18,6 +23,7 @@ export async function attachPhoto(db: LocalDb, input: PhotoInput): Promise<Outbo
   const { data, mime, ...args } = input;
   const buffer = ownBuffer(data);
   const sha256 = await sha256Hex(buffer);
+  const mutate = await loadMutate();
   return mutate(
     db,
     'photo.attach',
@@ -40,6 +46,7 @@ export async function captureSignature(db: LocalDb, input: SignatureInput): Prom
   const buffer = ownBuffer(image);
   const imageSha256 = await sha256Hex(buffer);
   const hash = await recordHash(args.record as CanonicalValue);
+  const mutate = await loadMutate();
   return mutate(
     db,
     'signature.capture',

@@ -9,6 +9,7 @@ import { amountDueMinor, childId, DEFAULT_CHECKLIST, type PaymentLike } from '..
 import { bodyStyleTemplate, type BodyStyle } from '../panels';
 import { InputError } from '../errors';
 import type { CommandArgs, JobCreateArgs } from './commands';
+import type { TimerTimes } from './timer-clock';
 import type {
   ChecklistItemRow,
   JobPanelRow,
@@ -28,6 +29,10 @@ export interface EffectContext {
   businessId: string;
   atMs: number;
 }
+
+// Time left on a timer: its own module, so a screen that only shows timers does not carry
+// every command's effects.
+export { timerRemainingMs } from './timer-clock';
 
 const iso = (ms: number): string => new Date(ms).toISOString();
 
@@ -386,11 +391,6 @@ export function timerStartRow(
   };
 }
 
-type TimerTimes = Pick<
-  TimerRow,
-  'endsAt' | 'pausedMs' | 'pausedAt' | 'acknowledgedAt' | 'cancelledAt'
->;
-
 /** Pausing a running timer; null when it is already paused or finished with (or ended). */
 export function pauseTimer(t: TimerTimes, atMs: number): Pick<TimerRow, 'pausedAt'> | null {
   if (t.pausedAt !== null || t.cancelledAt !== null || t.acknowledgedAt !== null) return null;
@@ -414,12 +414,6 @@ export function resumeTimer(
     pausedMs: t.pausedMs + span,
     endsAt: iso(Date.parse(t.endsAt) + span),
   };
-}
-
-/** Time left on a timer at `nowMs` (server clock): frozen while paused, never below 0. */
-export function timerRemainingMs(t: TimerTimes, nowMs: number): number {
-  const from = t.pausedAt !== null ? Date.parse(t.pausedAt) : nowMs;
-  return Math.max(0, Date.parse(t.endsAt) - from);
 }
 
 /** Why a card payment cannot be asked for: the server's code and words for the same rule. */

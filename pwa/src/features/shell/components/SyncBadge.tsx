@@ -1,9 +1,14 @@
 import { IonIcon } from '@ionic/react';
 import { alertCircleOutline, checkmarkCircleOutline, cloudUploadOutline } from 'ionicons/icons';
 import { useState } from 'react';
-import { SyncSheet } from '../../../sync/components/SyncSheet';
+import { lazySheet } from '../../../app/lazySheet';
 import type { SyncStatusView } from '../../../sync/context';
 import { useSyncStatus } from '../../../sync/useSyncStatus';
+
+/** The details behind the badge, opened by a tap: loaded then, not with every tab. */
+const SyncSheet = lazySheet(() =>
+  import('../../../sync/components/SyncSheet').then((m) => m.SyncSheet),
+);
 
 export function badgeFor(
   status: Pick<SyncStatusView, 'state' | 'pending' | 'rejected' | 'serverAway'>,

@@ -1,4 +1,5 @@
 import { useMemo, useState } from 'react';
+import { lazySheet } from '../../../app/lazySheet';
 import { useSession } from '../../auth/hooks/useSession';
 import { useJobSummaries } from '../../jobs/hooks/useJobSummaries';
 import { useAlarmRunner } from '../hooks/useAlarmRunner';
@@ -7,9 +8,11 @@ import { useServerNow, useServerOffset } from '../hooks/useServerClock';
 import { useKeepScreenOn, useWakeLock } from '../hooks/useWakeLock';
 import { byDue, timerState } from '../model/timerWords';
 import { AlarmBanners } from './AlarmBanners';
-import { TimerSheet } from './TimerSheet';
 import { TimerStrip } from './TimerStrip';
 import './timers.css';
+
+/** Every timer and the alarm settings, opened by a tap: loaded then, not with the shell. */
+const TimerSheet = lazySheet(() => import('./TimerSheet').then((m) => m.TimerSheet));
 
 /**
  * What the signed-in shell shows above the tab bar: alarms waiting to be acknowledged, and

@@ -2,11 +2,11 @@ import { IonIcon } from '@ionic/react';
 import { addOutline } from 'ionicons/icons';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
+import { lazySheet } from '../../../app/lazySheet';
 import { useLiveTimers } from '../../timers/hooks/useLiveTimers';
 import { useServerNow } from '../../timers/hooks/useServerClock';
 import { KIND_ICONS, stateLook } from '../../timers/components/kindLook';
 import '../../timers/components/timers.css';
-import { StartTimerSheet } from '../../timers/components/StartTimerSheet';
 import {
   byDue,
   KIND_WORDS,
@@ -15,6 +15,11 @@ import {
   remainingText,
   timerState,
 } from '../../timers/model/timerWords';
+
+/** Opened by a tap: its form (and the climate and job-picking code) loads then. */
+const StartTimerSheet = lazySheet(() =>
+  import('../../timers/components/StartTimerSheet').then((m) => m.StartTimerSheet),
+);
 
 /** Every timer running now across all jobs, nearest end first; tap one to open its job. */
 export function TimersNow({ jobWords }: { jobWords: (jobId: string) => string | undefined }) {

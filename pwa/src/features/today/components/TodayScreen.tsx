@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
+import { lazySheet } from '../../../app/lazySheet';
 import { useSession } from '../../auth/hooks/useSession';
-import { FieldSettingsSheet } from '../../settings/components/FieldSettingsSheet';
 import { useUnits } from '../../settings/useUnits';
 import { useJobSummaries } from '../../jobs/hooks/useJobSummaries';
 import { jobsOfDay } from '../../jobs/model/jobSummary';
@@ -10,6 +10,11 @@ import { DueList } from './DueList';
 import { TimersNow } from './TimersNow';
 import { TodayVisits } from './TodayVisits';
 import './today.css';
+
+/** The owner's units and drive times, opened by a tap: loaded then, not with Today. */
+const FieldSettingsSheet = lazySheet(() =>
+  import('../../settings/components/FieldSettingsSheet').then((m) => m.FieldSettingsSheet),
+);
 
 const SOURCE_WORDS = {
   server: 'your settings',
