@@ -191,6 +191,51 @@ describe('customers, vehicles and jobs', () => {
     expect(res.body.details[0].field).toBe('windowEnd');
   });
 
+  it('refuses a window longer than 14 days (our own limit), saying so', async () => {
+    const { customerId, vehicleId } = await makeJob(app, owner);
+    const res = await http(app)
+      .post('/api/jobs')
+      .auth(owner.accessToken, bearer)
+      .send({
+        id: randomUUID(),
+        customerId,
+        vehicleId,
+        windowStart: '2026-12-02T08:00:00Z',
+        windowEnd: '2026-12-16T08:00:01Z',
+      })
+      .expect(400);
+    expect(res.body.message).toMatch(/at most 14 days/);
+    expect(res.body.details[0].field).toBe('windowEnd');
+  });
+
+  it('lists the visits overlapping a range: one begun before it, none ended before it', async () => {
+    const other = await signUpOwner(app, 'jobs-range');
+    const { customerId, vehicleId } = await makeJob(app, other);
+    const book = async (start: string, end: string) => {
+      const id = randomUUID();
+      await http(app)
+        .post('/api/jobs')
+        .auth(other.accessToken, bearer)
+        .send({ id, customerId, vehicleId, windowStart: start, windowEnd: end })
+        .expect(201);
+      return id;
+    };
+    // The range is 2027-03-10 .. 2027-03-17.
+    const longBefore = await book('2027-03-01T08:00:00Z', '2027-03-12T17:00:00Z'); // 11 days, overlaps
+    const endedBefore = await book('2027-03-08T08:00:00Z', '2027-03-09T17:00:00Z');
+    const inside = await book('2027-03-11T08:00:00Z', '2027-03-11T12:00:00Z');
+    const after = await book('2027-03-17T08:00:00Z', '2027-03-17T12:00:00Z');
+    const res = await http(app)
+      .get('/api/jobs?from=2027-03-10T00:00:00Z&to=2027-03-17T00:00:00Z&limit=10')
+      .auth(other.accessToken, bearer)
+      .expect(200);
+    const ids = (res.body.items as { id: string }[]).map((j) => j.id);
+    expect(ids).toEqual([longBefore, inside]);
+    expect(res.body.total).toBe(2);
+    expect(ids).not.toContain(endedBefore);
+    expect(ids).not.toContain(after);
+  });
+
   it('writes an audit entry for each change, naming who made it', async () => {
     const { jobId } = await makeJob(app, owner);
     const ds = app.get(DataSource);

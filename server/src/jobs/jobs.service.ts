@@ -7,6 +7,8 @@ import {
   childId,
   DEFAULT_CHECKLIST,
   bodyStyleTemplate,
+  MAX_VISIT_WINDOW_MS,
+  visitWindowProblem,
   type BodyStyle,
 } from '@panelpass/shared';
 import { Brackets, DataSource, EntityManager, In } from 'typeorm';
@@ -261,12 +263,22 @@ export class JobsService implements OnModuleInit {
       .where('j.business_id = :b', { b: actor.businessId })
       .orderBy('j.windowStart', 'ASC')
       .addOrderBy('j.id', 'ASC')
-      .take(limit)
-      .skip(offset);
+      // Plain LIMIT/OFFSET: the joins are one-to-one, so TypeORM's DISTINCT paging query
+      // (take/skip) would only add a round trip.
+      .limit(limit)
+      .offset(offset);
     if (actor.role === 'tech') qb.andWhere('j.assigned_tech_id = :u', { u: actor.userId });
     if (actor.role === 'customer') qb.andWhere('j.customer_id = :cid', { cid: actor.customerId });
     if (query.stage) qb.andWhere('j.stage = :stage', { stage: query.stage });
-    if (query.from) qb.andWhere('j.window_end >= :from', { from: query.from });
+    if (query.from) {
+      // A window lasts at most MAX_VISIT_WINDOW_MS, so a visit overlapping the range starts no
+      // earlier than that before it: the (business, window start) index reads only the range,
+      // not every earlier visit of the business.
+      qb.andWhere('j.window_end >= :from', { from: query.from }).andWhere(
+        'j.window_start >= :earliest',
+        { earliest: new Date(query.from.getTime() - MAX_VISIT_WINDOW_MS) },
+      );
+    }
     if (query.to) qb.andWhere('j.window_start < :to', { to: query.to });
     if (query.q) {
       const q = likePattern(query.q);
@@ -348,5 +360,11 @@ function checkWindow(start: Date, end: Date): void {
       'windowEnd must be after windowStart',
       [{ field: 'windowEnd', rules: { afterStart: 'windowEnd must be after windowStart' } }],
     );
+  }
+  const problem = visitWindowProblem(start.getTime(), end.getTime());
+  if (problem) {
+    throw new AppException(HttpStatus.BAD_REQUEST, 'validation-failed', problem, [
+      { field: 'windowEnd', rules: { maxLength: problem } },
+    ]);
   }
 }

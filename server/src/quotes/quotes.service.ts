@@ -1,7 +1,7 @@
 import { HttpStatus, Injectable, OnModuleInit } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { type BodyStyle, childId, formatMinor } from '@panelpass/shared';
+import { type BodyStyle, childId, formatMinor, visitWindowProblem } from '@panelpass/shared';
 import { randomBytes } from 'node:crypto';
 import { DataSource, EntityManager, FindOptionsWhere, In, Not } from 'typeorm';
 import { sha256 } from '../auth/auth.service';
@@ -81,6 +81,13 @@ function checkWindow(inputs: QuoteInputsDto): void {
     const message = 'inputs.windowEnd must come with inputs.windowStart, and after it';
     throw new AppException(HttpStatus.BAD_REQUEST, 'validation-failed', message, [
       { field: 'inputs.windowEnd', rules: { order: message } },
+    ]);
+  }
+  // The visit it books must be bookable: the same limit as a job's window.
+  const problem = visitWindowProblem(start.getTime(), end.getTime());
+  if (problem) {
+    throw new AppException(HttpStatus.BAD_REQUEST, 'validation-failed', problem, [
+      { field: 'inputs.windowEnd', rules: { maxLength: problem } },
     ]);
   }
 }

@@ -2,3 +2,4 @@ export * from './stages';
 export * from './ids';
 export * from './checklists';
 export * from './money';
+export * from './window';
