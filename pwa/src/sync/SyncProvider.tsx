@@ -9,8 +9,9 @@ import { useLiveSyncStatus } from './useLiveSyncStatus';
 
 /**
  * The engine (push, pull, rebase) and the commands' local effects are loaded beside the first
- * screen, not before it: Today reads the phone's database and needs neither to show. Both are
- * precached by the service worker, so this works offline too.
+ * screen, not before it: Today reads the phone's database and needs neither to show, so the
+ * database is handed to the screens at once and only sending and fetching wait for the engine.
+ * Both are precached by the service worker, so this works offline too.
  */
 const loadEngine = () =>
   Promise.all([import('./engine'), import('./transport')]).then(([engine, transport]) => ({
@@ -21,8 +22,24 @@ const loadMutate = () => import('../db/mutate').then((m) => m.mutate);
 
 interface Runtime {
   db: LocalDb;
-  engine: SyncEngine;
+  /** Null for the moment its code takes to load, after the first screen has its data. */
+  engine: SyncEngine | null;
+  /** The started engine; null when the session ended first (or its code could not load). */
+  started: Promise<SyncEngine | null>;
 }
+
+/** What the status reads from an engine that has not started yet: nothing running, no error. */
+const notStarted: Pick<SyncEngine, 'subscribe' | 'getState'> = {
+  subscribe: () => () => undefined,
+  getState: () => NOT_STARTED_STATE,
+};
+const NOT_STARTED_STATE = {
+  syncing: false,
+  lastError: null,
+  failures: 0,
+  nextAttemptAt: null,
+  serverAway: false,
+};
 
 /**
  * Asks the browser once, after sign-in, to keep this app's storage under pressure (Safari
@@ -63,16 +80,21 @@ export function SyncProvider({ children }: { children: ReactNode }) {
     const db = new LocalDb({ userId, businessId, role });
     let ended = false;
     let engine: SyncEngine | null = null;
-    void loadEngine().then(({ SyncEngine, createHttpTransport }) => {
-      if (ended) return;
-      engine = new SyncEngine({
-        db,
-        transport: createHttpTransport({ api: apiClient, sessionStore }),
-      });
-      engine.start();
-      setRuntime({ db, engine });
-      void askForPersistentStorageOnce(db).catch(() => undefined);
-    });
+    const started: Promise<SyncEngine | null> = loadEngine().then(
+      ({ SyncEngine, createHttpTransport }) => {
+        if (ended) return null;
+        engine = new SyncEngine({
+          db,
+          transport: createHttpTransport({ api: apiClient, sessionStore }),
+        });
+        engine.start();
+        setRuntime({ db, engine, started });
+        void askForPersistentStorageOnce(db).catch(() => undefined);
+        return engine;
+      },
+      () => null,
+    );
+    setRuntime({ db, engine: null, started });
     return () => {
       ended = true;
       setRuntime(null);
@@ -98,13 +120,14 @@ function LiveSync({
   onForget: () => void;
   children: ReactNode;
 }) {
-  const { db, engine } = runtime;
-  const status = useLiveSyncStatus(db, engine);
+  const { db, engine, started } = runtime;
+  // The stand-in is only read (subscribe, getState) by the status hook.
+  const status = useLiveSyncStatus(db, engine ?? (notStarted as SyncEngine));
   const actions = useMemo(
     (): Omit<SyncContextValue, 'status'> => ({
       db,
       mutate: async (name, args) => (await loadMutate())(db, name, args),
-      syncNow: () => engine.syncNow(),
+      syncNow: async () => (await started)?.syncNow() ?? false,
       async retryRejected(id) {
         const rejected = await db.rejected.get(id);
         if (!rejected) return;
@@ -119,11 +142,11 @@ function LiveSync({
       async forgetThisPhone() {
         // Let go of the live queries first: they would fail on a deleted database.
         onForget();
-        await engine.stop();
+        await (await started)?.stop();
         await db.delete();
       },
     }),
-    [db, engine, onForget],
+    [db, started, onForget],
   );
   const value = useMemo(() => ({ ...actions, status }), [actions, status]);
   return <SyncContext.Provider value={value}>{children}</SyncContext.Provider>;

@@ -1,0 +1,83 @@
+// Live queries and the phone's database need a global indexedDB: give the test one first.
+import 'fake-indexeddb/auto';
+import { act, cleanup, render, screen, waitFor } from '@testing-library/react';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { sessionStore } from '../app/services';
+import { aSession } from '../test/sessions';
+import { useSync } from './context';
+
+/** The engine's code arrives only when the test lets it (a slow phone loading its chunk). */
+const engineCode = vi.hoisted(() => {
+  let release: () => void = () => undefined;
+  const gate = new Promise<void>((resolve) => {
+    release = resolve;
+  });
+  const syncNow = vi.fn(() => Promise.resolve(true));
+  return { gate, release: () => release(), syncNow };
+});
+
+vi.mock('./engine', async () => {
+  await engineCode.gate;
+  // One object, as the real engine keeps until its state changes.
+  const running = {
+    syncing: true,
+    lastError: null,
+    failures: 0,
+    nextAttemptAt: null,
+    serverAway: false,
+  };
+  class SyncEngine {
+    getState = () => running;
+    subscribe = () => () => undefined;
+    start() {}
+    stop() {
+      return Promise.resolve();
+    }
+    syncNow = engineCode.syncNow;
+  }
+  return { SyncEngine };
+});
+
+const { SyncProvider } = await import('./SyncProvider');
+
+afterEach(() => {
+  cleanup();
+  sessionStore.set(null);
+});
+
+/** The provider's value as the probe last saw it. */
+let lastValue: ReturnType<typeof useSync> = null;
+
+function Probe() {
+  const sync = useSync();
+  lastValue = sync;
+  return (
+    <p>
+      {sync ? 'database ready' : 'no database'} · {sync?.status.syncing ? 'syncing' : 'idle'}
+    </p>
+  );
+}
+
+describe('SyncProvider', () => {
+  it("hands the phone's database to the screens before the sync engine's code has loaded", async () => {
+    sessionStore.set(aSession());
+    render(
+      <SyncProvider>
+        <Probe />
+      </SyncProvider>,
+    );
+    // Today can read its data while the engine is still on its way.
+    expect(await screen.findByText('database ready · idle')).toBeTruthy();
+
+    // A sync asked for meanwhile waits for the engine, then runs.
+    let synced: Promise<boolean> | undefined;
+    act(() => {
+      synced = lastValue?.syncNow();
+    });
+    expect(engineCode.syncNow).not.toHaveBeenCalled();
+    engineCode.release();
+    await waitFor(() => expect(screen.getByText('database ready · syncing')).toBeTruthy());
+    expect(await synced).toBe(true);
+    expect(engineCode.syncNow).toHaveBeenCalledTimes(1);
+  });
+});
