@@ -11,10 +11,10 @@ import type { Plugin } from 'vite';
  * which @ionic/react defines eagerly). @ionic/react is one module that imports every
  * component's `defineCustomElement`, so any overlay used anywhere would land in the entry chunk
  * beside IonApp (~30 kB gzipped). These are defined from their own chunks once the page has
- * loaded. Ionic opens controller overlays (useIonAlert, useIonToast) after
+ * loaded and the browser is first idle (at most 3 s later), so they do not compete with the
+ * first screen's paint. Ionic opens controller overlays (useIonAlert, useIonToast) after
  * `customElements.whenDefined`, and inline ones (IonModal) pass `is-open` as an attribute,
- * which an element defined later still reads; the chunks are fetched at the page's load event,
- * long before anyone can open a sheet.
+ * which an element defined later still reads; so a sheet opened sooner still opens.
  */
 const deferredIonicTags = [
   'ion-action-sheet',
@@ -38,8 +38,12 @@ const whenLoaded = `const __ppDefineLater = (load, soon) => {
     if (started) return;
     started = true;
     const run = () => { void load().then((m) => m.defineCustomElement()); };
-    if (soon || typeof document === 'undefined' || document.readyState === 'complete') run();
-    else window.addEventListener('load', run, { once: true });
+    if (soon || typeof document === 'undefined') return run();
+    const idle = () => typeof requestIdleCallback === 'function'
+      ? requestIdleCallback(run, { timeout: 3000 })
+      : setTimeout(run, 200);
+    if (document.readyState === 'complete') idle();
+    else window.addEventListener('load', idle, { once: true });
   };
 };
 `;
