@@ -68,6 +68,20 @@ describe('AllExceptionsFilter', () => {
     expect(JSON.stringify(r.body)).not.toContain('secret sql');
   });
 
+  it('answers 400 for text PostgreSQL cannot store (a NUL character), hiding SQL', () => {
+    const err = new QueryFailedError(
+      'INSERT secret sql',
+      [],
+      Object.assign(new Error('invalid byte sequence for encoding "UTF8": 0x00'), {
+        code: '22021',
+      }),
+    );
+    const r = capture(err);
+    expect(r.status).toBe(400);
+    expect(r.body).toMatchObject({ statusCode: 400, code: 'bad-request' });
+    expect(JSON.stringify(r.body)).not.toContain('secret sql');
+  });
+
   it('answers 503 while the database is unreachable, and 500 without details otherwise', () => {
     expect(
       capture(Object.assign(new Error('connect ECONNREFUSED'), { code: 'ECONNREFUSED' })).status,

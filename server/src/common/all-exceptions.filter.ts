@@ -184,6 +184,14 @@ export function toErrorBody(exception: unknown): ErrorBody {
         message: 'A record this refers to does not exist',
       };
     }
+    if (pgCode === '22021') {
+      // PostgreSQL text cannot hold U+0000; JSON can carry it ("\u0000") into any text field.
+      return {
+        statusCode: 400,
+        code: 'bad-request',
+        message: 'Text may not contain the NUL character (\\u0000)',
+      };
+    }
     if (pgCode === '22P02' || pgCode === '22003' || pgCode === '23514') {
       return { statusCode: 400, code: 'bad-request', message: 'A value is not valid' };
     }
