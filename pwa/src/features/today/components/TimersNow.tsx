@@ -2,8 +2,8 @@ import { IonIcon } from '@ionic/react';
 import { addOutline } from 'ionicons/icons';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
+import type { TimerRow } from '@panelpass/shared';
 import { lazySheet } from '../../../app/lazySheet';
-import { useLiveTimers } from '../../timers/hooks/useLiveTimers';
 import { useServerNow } from '../../timers/hooks/useServerClock';
 import { KIND_ICONS, stateLook } from '../../timers/components/kindLook';
 import '../../timers/components/timers.css';
@@ -21,19 +21,27 @@ const StartTimerSheet = lazySheet(() =>
   import('../../timers/components/StartTimerSheet').then((m) => m.StartTimerSheet),
 );
 
-/** Every timer running now across all jobs, nearest end first; tap one to open its job. */
-export function TimersNow({ jobWords }: { jobWords: (jobId: string) => string | undefined }) {
-  const timers = useLiveTimers();
-  const now = useServerNow(timers?.length ? 1000 : null);
+/**
+ * Every timer running now across all jobs (`timers`, read by Today with its other lists so the
+ * screen appears whole), nearest end first; tap one to open its job.
+ */
+export function TimersNow({
+  timers,
+  jobWords,
+}: {
+  timers: readonly TimerRow[];
+  jobWords: (jobId: string) => string | undefined;
+}) {
+  const now = useServerNow(timers.length ? 1000 : null);
   const [starting, setStarting] = useState(false);
-  const shown = byDue(timers ?? [], now);
+  const shown = byDue(timers, now);
 
   return (
     <section className="pp-today__section" aria-labelledby="pp-today-timers">
       <h2 id="pp-today-timers" className="pp-today__heading">
         Timers running now
       </h2>
-      {timers === undefined ? null : shown.length ? (
+      {shown.length ? (
         <ul className="pp-today-timers">
           {shown.map((t) => {
             const kind = kindOf(t);

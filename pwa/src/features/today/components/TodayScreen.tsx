@@ -4,6 +4,7 @@ import { useSession } from '../../auth/hooks/useSession';
 import { useUnits } from '../../settings/useUnits';
 import { useJobSummaries } from '../../jobs/hooks/useJobSummaries';
 import { jobsOfDay } from '../../jobs/model/jobSummary';
+import { useLiveTimers } from '../../timers/hooks/useLiveTimers';
 import { useServerNow } from '../../timers/hooks/useServerClock';
 import { useDueItems } from '../hooks/useDueItems';
 import { DueList } from './DueList';
@@ -44,6 +45,7 @@ export function TodayScreen() {
   // Deadlines and chip times move by the minute; the timers section ticks by the second.
   const now = useServerNow(15_000);
   const due = useDueItems(now);
+  const timers = useLiveTimers();
   const visits = useMemo(() => jobsOfDay(jobs ?? [], now), [jobs, now]);
   const jobWords = useMemo(() => {
     const byId = new Map(
@@ -55,6 +57,13 @@ export function TodayScreen() {
   const date = dayWords().format(now);
   const count = visits.length;
 
+  // The three lists come from the phone's database one after the other; the screen waits for
+  // all of them and appears whole, so nothing the detailer is about to tap jumps down as the
+  // next list arrives. Until then a blank block as tall as the screen holds the space.
+  if (due === undefined || jobs === undefined || timers === undefined) {
+    return <div className="pp-today pp-today--reading" aria-busy="true" />;
+  }
+
   return (
     <div className="pp-today">
       <p className="pp-today__date">
@@ -65,7 +74,7 @@ export function TodayScreen() {
         <h2 id="pp-today-due" className="pp-today__heading">
           Needs doing
         </h2>
-        {due === undefined ? null : due.length ? (
+        {due.length ? (
           <DueList items={due} jobWords={jobWords} />
         ) : (
           <p className="pp-today__none">
@@ -74,16 +83,14 @@ export function TodayScreen() {
         )}
       </section>
 
-      <TimersNow jobWords={jobWords} />
+      <TimersNow timers={timers} jobWords={jobWords} />
 
-      {jobs === undefined ? null : (
-        <TodayVisits
-          visits={visits}
-          drive={units.drive}
-          driveSource={SOURCE_WORDS[units.source]}
-          onChangeDrive={isOwner ? () => setEditing(true) : undefined}
-        />
-      )}
+      <TodayVisits
+        visits={visits}
+        drive={units.drive}
+        driveSource={SOURCE_WORDS[units.source]}
+        onChangeDrive={isOwner ? () => setEditing(true) : undefined}
+      />
       {isOwner ? <FieldSettingsSheet isOpen={editing} onClose={() => setEditing(false)} /> : null}
     </div>
   );
