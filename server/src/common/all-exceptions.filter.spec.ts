@@ -80,6 +80,12 @@ describe('AllExceptionsFilter', () => {
     expect(r.status).toBe(400);
     expect(r.body).toMatchObject({ statusCode: 400, code: 'bad-request' });
     expect(JSON.stringify(r.body)).not.toContain('secret sql');
+    const inJson = new QueryFailedError(
+      'INSERT',
+      [],
+      Object.assign(new Error('unsupported Unicode escape sequence'), { code: '22P05' }),
+    );
+    expect(capture(inJson).status).toBe(400);
   });
 
   it('answers 503 while the database is unreachable, and 500 without details otherwise', () => {

@@ -184,8 +184,8 @@ export function toErrorBody(exception: unknown): ErrorBody {
         message: 'A record this refers to does not exist',
       };
     }
-    if (pgCode === '22021') {
-      // PostgreSQL text cannot hold U+0000; JSON can carry it ("\u0000") into any text field.
+    if (pgCode === '22021' || pgCode === '22P05') {
+      // PostgreSQL text and jsonb cannot hold U+0000; JSON carries it ("\u0000") into any field.
       return {
         statusCode: 400,
         code: 'bad-request',
