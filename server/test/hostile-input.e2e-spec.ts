@@ -469,6 +469,22 @@ describe('hostile input: every route × every caller', () => {
     if (mailDir) await rm(mailDir, { recursive: true, force: true });
   });
 
+  it('would see a leak: each business finds its own marker words and ids in its answers', async () => {
+    for (const [key, s] of [
+      ['A', biz.A.owner],
+      ['B', biz.B.owner],
+    ] as const) {
+      const res = await http(app)
+        .get(`/api/jobs/${biz[key].jobId}/workspace`)
+        .auth(s.accessToken, bearer)
+        .buffer(true)
+        .parse(asBytes);
+      expect(res.status).toBe(200);
+      const own = [biz[key].marker, biz[key].jobId, biz[key].customerId];
+      expect(problemsOf(res, own)).toEqual([`holds the other business's ${own.join(', ')}`]);
+    }
+  });
+
   /** Sends one request as one caller; the problems with its answer. */
   async function sendAs(who: Caller, r: HostileRequest, anonAuth: string | null) {
     const mine: BizKey | 'anonymous' =
