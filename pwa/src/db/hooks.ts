@@ -1,6 +1,6 @@
 import { useLiveQuery } from 'dexie-react-hooks';
 import type { SyncRowTypes, SyncTable } from '@panelpass/shared';
-import { useSync } from '../sync/context';
+import { useSyncActions } from '../sync/context';
 import type { LocalDb } from './localDb';
 
 /**
@@ -9,7 +9,8 @@ import type { LocalDb } from './localDb';
  * a pull.
  */
 export function useLocalDb(): LocalDb | null {
-  return useSync()?.db ?? null;
+  // Not the status: a screen reading rows does not render again at each sync.
+  return useSyncActions()?.db ?? null;
 }
 
 /** One row by id (undefined while loading, null when there is none). */

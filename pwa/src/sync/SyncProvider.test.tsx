@@ -4,7 +4,7 @@ import { act, cleanup, render, screen, waitFor } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { sessionStore } from '../app/services';
 import { aSession } from '../test/sessions';
-import { useSync } from './context';
+import { useSync, useSyncActions } from './context';
 
 /** The engine's code arrives only when the test lets it (a slow phone loading its chunk). */
 const engineCode = vi.hoisted(() => {
@@ -79,5 +79,28 @@ describe('SyncProvider', () => {
     await waitFor(() => expect(screen.getByText('database ready · syncing')).toBeTruthy());
     expect(await synced).toBe(true);
     expect(engineCode.syncNow).toHaveBeenCalledTimes(1);
+  });
+
+  it('screens reading the database do not render again when the sync status moves', async () => {
+    sessionStore.set(aSession());
+    const seen: unknown[] = [];
+    function Reader() {
+      const actions = useSyncActions();
+      if (actions) seen.push(actions);
+      return <p>{actions ? 'reader has the database' : 'reader waits'}</p>;
+    }
+    render(
+      <SyncProvider>
+        <Reader />
+        <Probe />
+      </SyncProvider>,
+    );
+    // The engine's code comes (released by the test above) and its first sync starts: the
+    // status moves from idle to syncing.
+    await waitFor(() => expect(screen.getByText('database ready · syncing')).toBeTruthy());
+    expect(screen.getByText('reader has the database')).toBeTruthy();
+    // One render with the database, none for the status.
+    expect(seen).toHaveLength(1);
+    expect((seen[0] as { db: unknown }).db).toBe(lastValue?.db);
   });
 });

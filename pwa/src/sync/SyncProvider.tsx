@@ -1,17 +1,19 @@
 import { useCallback, useEffect, useMemo, useState, type ReactNode } from 'react';
 import type { CommandName } from '@panelpass/shared';
+import { whenIdle } from '../app/lazySheet';
 import { apiClient, sessionStore } from '../app/services';
 import { useSession } from '../features/auth/hooks/useSession';
 import { LocalDb, type DbOwner } from '../db/localDb';
-import { SyncContext, type SyncContextValue } from './context';
+import { SyncActionsContext, SyncContext, type SyncActions } from './context';
 import type { SyncEngine } from './engine';
 import { useLiveSyncStatus } from './useLiveSyncStatus';
 
 /**
  * The engine (push, pull, rebase) and the commands' local effects are loaded beside the first
  * screen, not before it: Today reads the phone's database and needs neither to show, so the
- * database is handed to the screens at once and only sending and fetching wait for the engine.
- * Both are precached by the service worker, so this works offline too.
+ * database is handed to the screens at once and only sending and fetching wait for the engine,
+ * which is loaded once the browser is first idle (so not while Today renders). Both are
+ * precached by the service worker, so this works offline too.
  */
 const loadEngine = () =>
   Promise.all([import('./engine'), import('./transport')]).then(([engine, transport]) => ({
@@ -80,7 +82,11 @@ export function SyncProvider({ children }: { children: ReactNode }) {
     const db = new LocalDb({ userId, businessId, role });
     let ended = false;
     let engine: SyncEngine | null = null;
-    const started: Promise<SyncEngine | null> = loadEngine().then(
+    let cancelIdle = () => undefined as void;
+    const idle = new Promise<void>((resolve) => {
+      cancelIdle = whenIdle(resolve);
+    });
+    const started: Promise<SyncEngine | null> = idle.then(loadEngine).then(
       ({ SyncEngine, createHttpTransport }) => {
         if (ended) return null;
         engine = new SyncEngine({
@@ -97,13 +103,20 @@ export function SyncProvider({ children }: { children: ReactNode }) {
     setRuntime({ db, engine: null, started });
     return () => {
       ended = true;
+      cancelIdle();
       setRuntime(null);
       if (engine) void engine.stop().finally(() => db.close());
       else db.close();
     };
   }, [userId, businessId, role]);
 
-  if (!runtime) return <SyncContext.Provider value={null}>{children}</SyncContext.Provider>;
+  if (!runtime) {
+    return (
+      <SyncActionsContext.Provider value={null}>
+        <SyncContext.Provider value={null}>{children}</SyncContext.Provider>
+      </SyncActionsContext.Provider>
+    );
+  }
   return (
     <LiveSync runtime={runtime} onForget={forget}>
       {children}
@@ -124,7 +137,7 @@ function LiveSync({
   // The stand-in is only read (subscribe, getState) by the status hook.
   const status = useLiveSyncStatus(db, engine ?? (notStarted as SyncEngine));
   const actions = useMemo(
-    (): Omit<SyncContextValue, 'status'> => ({
+    (): SyncActions => ({
       db,
       mutate: async (name, args) => (await loadMutate())(db, name, args),
       syncNow: async () => (await started)?.syncNow() ?? false,
@@ -149,5 +162,10 @@ function LiveSync({
     [db, started, onForget],
   );
   const value = useMemo(() => ({ ...actions, status }), [actions, status]);
-  return <SyncContext.Provider value={value}>{children}</SyncContext.Provider>;
+  // Two contexts: the status moves at every sync, the database and the actions do not.
+  return (
+    <SyncActionsContext.Provider value={actions}>
+      <SyncContext.Provider value={value}>{children}</SyncContext.Provider>
+    </SyncActionsContext.Provider>
+  );
 }

@@ -45,6 +45,21 @@ export function useSync(): SyncContextValue | null {
   return useContext(SyncContext);
 }
 
+/** The database and the actions: the same object for the whole session. */
+export type SyncActions = Omit<SyncContextValue, 'status'>;
+
+export const SyncActionsContext = createContext<SyncActions | null>(null);
+
+/**
+ * The database and the actions without the status. A screen that only reads the phone's rows
+ * or records changes uses this, so it does not render again each time the status moves (a
+ * single sync moves it several times: started, pulled, done) — only the badge and the few
+ * screens that show the status do.
+ */
+export function useSyncActions(): SyncActions | null {
+  return useContext(SyncActionsContext);
+}
+
 export function statusState(pending: number, rejected: number): SyncStatusView['state'] {
   if (rejected > 0) return 'needs-look';
   return pending > 0 ? 'waiting' : 'saved';

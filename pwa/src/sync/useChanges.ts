@@ -5,7 +5,7 @@ import { changesOver, type Changes } from '../db/changes';
 import { CommandRefusedError, OutOfSpaceError } from '../db/errors';
 import { attachPhoto, captureSignature, type PhotoInput, type SignatureInput } from '../db/images';
 import type { OutboxEntry } from '../db/localDb';
-import { useSync } from './context';
+import { useSyncActions } from './context';
 
 export interface Recorder {
   /** Records a change; null (and the person told why, in words) when it was not stored. */
@@ -22,7 +22,7 @@ export interface Recorder {
  * person is told in words and nothing at all was stored.
  */
 export function useChanges(): Recorder {
-  const sync = useSync();
+  const sync = useSyncActions();
   const [presentAlert] = useIonAlert();
   return useMemo(() => {
     async function told(store: () => Promise<OutboxEntry>): Promise<OutboxEntry | null> {

@@ -5,7 +5,7 @@ import type { ReactNode } from 'react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { sha256Hex } from '../../db/images';
 import type { LocalDb } from '../../db/localDb';
-import { SyncContext, type SyncContextValue } from '../../sync/context';
+import { SyncActionsContext, SyncContext, type SyncContextValue } from '../../sync/context';
 import { freshIndexedDb, openTestDb, T0 } from '../../test/localDb';
 import { useImage } from './usePhotos';
 
@@ -30,9 +30,11 @@ afterEach(() => {
 
 function wrapper({ children }: { children: ReactNode }) {
   return (
-    <SyncContext.Provider value={{ db } as unknown as SyncContextValue}>
-      {children}
-    </SyncContext.Provider>
+    <SyncActionsContext.Provider value={{ db } as unknown as SyncContextValue}>
+      <SyncContext.Provider value={{ db } as unknown as SyncContextValue}>
+        {children}
+      </SyncContext.Provider>
+    </SyncActionsContext.Provider>
   );
 }
 
