@@ -19,6 +19,7 @@ import {
   timerStartRow,
   toMicrometres,
   toOneDecimal,
+  visitWindowProblem,
   type CommandArgs,
   type CommandName,
   type EffectContext,
@@ -227,6 +228,8 @@ function checkOfferedWindow(inputs: QuoteInputsArgs): void {
       'The visit offered must end after it starts',
     );
   }
+  const tooLong = visitWindowProblem(Date.parse(windowStart), Date.parse(windowEnd));
+  if (tooLong) throw new CommandRefusedError('validation-failed', tooLong);
 }
 
 const stringField = (record: Record<string, unknown>, key: string): string | undefined => {
@@ -394,6 +397,8 @@ export const COMMANDS: Registry = {
       if (end <= start) {
         throw new CommandRefusedError('validation-failed', 'windowEnd must be after windowStart');
       }
+      const tooLong = visitWindowProblem(start, end);
+      if (tooLong) throw new CommandRefusedError('validation-failed', tooLong);
       await patch(store, 'jobs', job, fields, ctx);
     },
   },

@@ -57,6 +57,13 @@ describe('jobCreateRows', () => {
     expect(b).toMatchObject({ address: '2 Heron Yard', lat: 50.1, lng: -0.1 });
   });
 
+  it('refuses a window over 14 days on the phone too, as the server does (our own limit)', () => {
+    const long = { ...args, windowEnd: '2025-05-17T09:00:00.001Z' };
+    expect(() => jobCreateRows(long, { customer, vehicle: { bodyStyle: 'van' } }, ctx)).toThrow(
+      /at most 14 days/,
+    );
+  });
+
   it('refuses a window that ends before it starts', () => {
     expect(() =>
       jobCreateRows(

@@ -5,7 +5,13 @@
  * rows — which is what a rebase after a pull relies on.
  */
 import { flushBy, maskRemoveBy, type MaskingTape, type SolventProduct } from '../dwell';
-import { amountDueMinor, childId, DEFAULT_CHECKLIST, type PaymentLike } from '../jobs';
+import {
+  amountDueMinor,
+  childId,
+  DEFAULT_CHECKLIST,
+  type PaymentLike,
+  visitWindowProblem,
+} from '../jobs';
 import { bodyStyleTemplate, type BodyStyle } from '../panels';
 import { InputError } from '../errors';
 import type { CommandArgs, JobCreateArgs } from './commands';
@@ -84,6 +90,8 @@ export function jobCreateRows(
   if (Date.parse(a.windowEnd) <= Date.parse(a.windowStart)) {
     throw new InputError('windowEnd', 'order', 'windowEnd must be after windowStart');
   }
+  const tooLong = visitWindowProblem(Date.parse(a.windowStart), Date.parse(a.windowEnd));
+  if (tooLong) throw new InputError('windowEnd', 'maxLength', tooLong);
   const base = (id: string) => newRowBase(id, ctx);
   const job: JobRow = {
     ...base(a.id),
