@@ -131,3 +131,54 @@ export function iconPerModule(): Plugin {
     },
   };
 }
+
+/**
+ * Ionic components carry the style sheets of both its looks, `ios` and `md`, as string literals
+ * (`static get style(){return{ios:'…',md:'…'}}`), and pick one by the mode at run time. The app
+ * pins `mode: 'md'` (src/main.tsx, setupIonicReact), so the `ios` sheets are never applied:
+ * this empties them at build time. An element given mode="ios" would show unstyled: the
+ * pinned mode and this plugin go together (and a unit test checks main.tsx still pins it).
+ */
+
+/** The end (index after the closing quote) of the JS string literal starting at `start`. */
+function endOfStringLiteral(code: string, start: number): number {
+  const quote = code[start];
+  if (quote !== "'" && quote !== '"' && quote !== '`') return -1;
+  for (let i = start + 1; i < code.length; i++) {
+    const c = code[i];
+    if (c === '\\') i++;
+    else if (quote === '`' && c === '$' && code[i + 1] === '{')
+      return -1; // not a plain string
+    else if (c === quote) return i + 1;
+  }
+  return -1;
+}
+
+/** `code` with every `ios:'<css>'` of Ionic's style getters emptied; counts what it removed. */
+export function dropIosStyles(code: string): { code: string; removed: number } {
+  const marker = 'static get style(){return{ios:';
+  let out = '';
+  let from = 0;
+  let removed = 0;
+  for (let at = code.indexOf(marker); at !== -1; at = code.indexOf(marker, from)) {
+    const literal = at + marker.length;
+    const end = endOfStringLiteral(code, literal);
+    if (end === -1) break; // an unexpected shape: leave the rest as it is
+    out += code.slice(from, literal) + "''";
+    removed += end - literal - 2;
+    from = end;
+  }
+  return { code: out + code.slice(from), removed };
+}
+
+export function ionicMdStylesOnly(): Plugin {
+  return {
+    name: 'panelpass:ionic-md-styles-only',
+    apply: 'build',
+    transform(code, id) {
+      if (!/[\\/]@ionic[\\/]core[\\/]components[\\/][^\\/]+\.js$/.test(id)) return null;
+      const { code: out, removed } = dropIosStyles(code);
+      return removed ? { code: out, map: null } : null;
+    },
+  };
+}

@@ -19,7 +19,8 @@ import { redirectFor } from './features/shell/model/access';
 
 const reducedMotion = window.matchMedia('(prefers-reduced-motion: reduce)').matches;
 
-// One look on every phone (Material mode), no ripples, no page slides when motion is reduced.
+// One look on every phone (Material mode; the build drops Ionic's other look's styles, see
+// vite.startup.ts), no ripples, no page slides when motion is reduced.
 setupIonicReact({ mode: 'md', rippleEffect: false, animated: !reducedMotion });
 
 // Settle the first screen before anything renders: a signed-out visitor goes straight to
