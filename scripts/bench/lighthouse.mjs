@@ -3,11 +3,16 @@
 // from outside. Run by scripts/bench/lighthouse, which starts the server with the demo data.
 //
 //  - sign-in: a first visit (Lighthouse clears the site's storage and cache before each run);
-//  - Today: signed in as the demo owner in the same browser first, then audited without a
-//    storage reset — the installed app a detailer opens (service worker and session kept).
+//  - Today: signed in as the demo owner in the same browser first (waiting for the first sync's
+//    last page and the service worker), then audited without a storage reset — the installed
+//    app a detailer opens each morning (service worker, session and synced data kept). The
+//    output says whether each run was such a warm start (assets from the service worker, the
+//    pull from a cursor above 0).
 //
 // Each page is audited RUNS times (default 3); the median of each figure is printed.
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+// PANELPASS_LIGHTHOUSE_REPORTS=<folder> keeps each run's full report (<page>-<run>.json) there;
+// PANELPASS_LIGHTHOUSE_PAGES=Today audits only the pages named (comma-separated).
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import lighthouse from 'lighthouse';
@@ -16,6 +21,9 @@ import { chromium } from 'playwright-core';
 const baseUrl = process.env.BENCH_URL;
 if (!baseUrl) throw new Error('BENCH_URL is not set (run scripts/bench/lighthouse)');
 const runs = Number(process.env.RUNS ?? 3);
+const reportDir = process.env.PANELPASS_LIGHTHOUSE_REPORTS;
+if (reportDir) mkdirSync(reportDir, { recursive: true });
+const onlyPages = process.env.PANELPASS_LIGHTHOUSE_PAGES?.split(',').map((p) => p.trim());
 const chromePath = process.env.CHROME_PATH ?? '/usr/bin/chromium';
 const owner = { email: 'owner@heronwake.example', password: 'detail-demo-1' };
 
@@ -47,7 +55,7 @@ const context = await chromium.launchPersistentContext(profile, {
 try {
   const port = Number(readFileSync(join(profile, 'DevToolsActivePort'), 'utf8').split('\n')[0]);
 
-  async function audit(url, disableStorageReset) {
+  async function audit(url, disableStorageReset, name) {
     const result = await lighthouse(url, {
       port,
       output: 'json',
@@ -58,6 +66,7 @@ try {
     const lhr = result?.lhr;
     if (!lhr) throw new Error(`Lighthouse gave no result for ${url}`);
     if (lhr.runtimeError) throw new Error(`${url}: ${lhr.runtimeError.message}`);
+    if (reportDir) writeFileSync(join(reportDir, `${name}.json`), JSON.stringify(lhr));
     const a = lhr.audits;
     return {
       performance: lhr.categories.performance.score,
@@ -66,10 +75,46 @@ try {
       cls: a['cumulative-layout-shift'].numericValue,
       accessibility: lhr.categories.accessibility.score,
       finalUrl: lhr.finalDisplayedUrl,
+      start: howStarted(a['network-requests']?.details?.items ?? []),
       failing: Object.values(a)
         .filter((x) => x.score !== null && x.score < 0.9 && x.scoreDisplayMode !== 'informative')
         .map((x) => x.id),
     };
+  }
+
+  /**
+   * How a page load started, from its requests: how many came from the service worker's cache
+   * (no bytes over the network), and which cursor the sync pull started from (0: the first,
+   * full pull of a new phone; above 0: only what changed since the last sync).
+   */
+  function howStarted(requests) {
+    const pulls = requests
+      .filter((r) => r.url.includes('/api/sync/pull'))
+      .map((r) => Number(new URL(r.url).searchParams.get('cursor')));
+    const assets = requests.filter((r) => /\/assets\//.test(r.url));
+    return {
+      fromWorker: assets.filter((r) => r.transferSize === 0).length,
+      assets: assets.length,
+      firstPullCursor: pulls.length ? pulls[0] : null,
+    };
+  }
+
+  /** Deletes the app's IndexedDB databases (session and service worker kept). */
+  async function forgetTheData() {
+    const page = await context.newPage();
+    await page.goto(`${baseUrl}/sign-in`);
+    await page.evaluate(async () => {
+      const idb = globalThis.indexedDB;
+      for (const { name } of await idb.databases()) {
+        if (!name) continue;
+        await new Promise((resolve, reject) => {
+          const request = idb.deleteDatabase(name);
+          request.onsuccess = request.onblocked = () => resolve(undefined);
+          request.onerror = () => reject(request.error);
+        });
+      }
+    });
+    await page.close();
   }
 
   async function signIn() {
@@ -78,8 +123,20 @@ try {
     const form = page.getByRole('form', { name: 'Sign in' });
     await form.getByLabel('E-mail').fill(owner.email);
     await form.getByLabel('Password', { exact: true }).fill(owner.password);
+    // The first sync after sign-in brings the whole demo week: wait for its last page.
+    const pulled = page.waitForResponse(
+      async (r) =>
+        r.url().includes('/api/sync/pull') &&
+        r.ok() &&
+        (await r.json().then(
+          (b) => b?.more === false,
+          () => false,
+        )),
+      { timeout: 120_000 },
+    );
     await form.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL(`${baseUrl}/today`);
+    await pulled;
     await page.getByRole('heading', { level: 1, name: 'Today', exact: true }).waitFor();
     // Let the service worker finish precaching, as on a phone that has used the app.
     await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
@@ -90,6 +147,15 @@ try {
   const pages = [
     { name: 'sign-in', url: `${baseUrl}/sign-in`, keepStorage: false, before: null },
     { name: 'Today', url: `${baseUrl}/today`, keepStorage: true, before: signIn },
+    // For comparison, not a goal: the same start on a phone whose data is gone (a new phone's
+    // first open, or after "forget this phone"): the first sync brings the whole demo week.
+    {
+      name: 'Today-first-sync',
+      url: `${baseUrl}/today`,
+      keepStorage: true,
+      beforeEach: forgetTheData,
+      comparison: true,
+    },
   ];
 
   const median = (values) => {
@@ -110,19 +176,25 @@ try {
   const summary = [];
   let allOk = true;
   for (const target of pages) {
+    if (onlyPages && !onlyPages.includes(target.name)) continue;
     if (target.before) await target.before();
     const results = [];
-    for (let i = 0; i < runs; i += 1) results.push(await audit(target.url, target.keepStorage));
+    for (let i = 0; i < runs; i += 1) {
+      if (target.beforeEach) await target.beforeEach();
+      results.push(await audit(target.url, target.keepStorage, `${target.name}-${i + 1}`));
+    }
     const wrongPlace = results.find((r) => !r.finalUrl.startsWith(target.url));
     if (wrongPlace) throw new Error(`${target.name} ended on ${wrongPlace.finalUrl}`);
     console.log('');
-    console.log(`${target.name} (${target.url})`);
+    console.log(
+      `${target.name} (${target.url})${target.comparison ? ' — for comparison, not a goal' : ''}`,
+    );
     const parts = [];
     for (const key of Object.keys(goals)) {
       const values = results.map((r) => r[key]);
       const m = median(values);
       const ok = meets(key, m);
-      allOk &&= ok;
+      if (!target.comparison) allOk &&= ok;
       console.log(
         `  ${key.padEnd(13)} ${fmt[key](m).padStart(9)}  (goal ${goals[key].words}) ${ok ? 'ok' : 'MISSED'}` +
           `   runs: ${values.map(fmt[key]).join(', ')}`,
@@ -131,9 +203,27 @@ try {
         `${key === 'performance' ? 'perf' : key === 'accessibility' ? 'a11y' : key.replace(/Ms$/, '').toUpperCase()} ${fmt[key](m)}`,
       );
     }
+    if (target.keepStorage) {
+      // Say what was measured: a warm start (installed, synced before), a first sync, or neither.
+      const starts = results.map((r) => r.start);
+      const cached = starts.every((s) => s.fromWorker === s.assets);
+      const kind =
+        cached && starts.every((s) => s.firstPullCursor !== null && s.firstPullCursor > 0)
+          ? 'warm (app installed and synced before: assets from the service worker, the pull only what changed)'
+          : cached && starts.every((s) => s.firstPullCursor === 0)
+            ? 'first sync (assets from the service worker, the whole week pulled in the load)'
+            : 'MIXED';
+      console.log(
+        `  start: ${kind}` +
+          `   runs: ${starts.map((s) => `${s.fromWorker}/${s.assets} assets from the worker, pull from cursor ${s.firstPullCursor ?? 'none'}`).join('; ')}`,
+      );
+    }
     const failing = [...new Set(results.flatMap((r) => r.failing))];
     if (failing.length) console.log(`  audits under 0.9 in some run: ${failing.join(', ')}`);
-    summary.push(`${target.name} ${parts.join(' ').replace(/ s\b/g, 's').replace(/ ms\b/g, 'ms')}`);
+    if (!target.comparison)
+      summary.push(
+        `${target.name} ${parts.join(' ').replace(/ s\b/g, 's').replace(/ ms\b/g, 'ms')}`,
+      );
   }
   console.log('');
   console.log(
