@@ -4,6 +4,7 @@ import { useSession } from '../../auth/hooks/useSession';
 import { useUnits } from '../../settings/useUnits';
 import { useJobSummaries } from '../../jobs/hooks/useJobSummaries';
 import { jobsOfDay } from '../../jobs/model/jobSummary';
+import { useAwaitingFirstSync } from '../../../sync/useAwaitingFirstSync';
 import { useLiveTimers } from '../../timers/hooks/useLiveTimers';
 import { useServerNow } from '../../timers/hooks/useServerClock';
 import { useDueItems } from '../hooks/useDueItems';
@@ -46,6 +47,7 @@ export function TodayScreen() {
   const now = useServerNow(15_000);
   const due = useDueItems(now);
   const timers = useLiveTimers();
+  const firstSync = useAwaitingFirstSync();
   const visits = useMemo(() => jobsOfDay(jobs ?? [], now), [jobs, now]);
   const jobWords = useMemo(() => {
     const byId = new Map(
@@ -60,8 +62,18 @@ export function TodayScreen() {
   // The three lists come from the phone's database one after the other; the screen waits for
   // all of them and appears whole, so nothing the detailer is about to tap jumps down as the
   // next list arrives. Until then a blank block as tall as the screen holds the space.
-  if (due === undefined || jobs === undefined || timers === undefined) {
-    return <div className="pp-today pp-today--reading" aria-busy="true" />;
+  // On a new phone the lists would show empty, then fill with the first sync: it waits for that
+  // too (online, a few seconds at most), saying so.
+  if (firstSync || due === undefined || jobs === undefined || timers === undefined) {
+    return (
+      <div className="pp-today pp-today--reading" aria-busy="true">
+        {firstSync ? (
+          <p className="pp-today__none" role="status">
+            Bringing your work onto this phone…
+          </p>
+        ) : null}
+      </div>
+    );
   }
 
   return (
