@@ -102,7 +102,8 @@ try {
   /** Deletes the app's IndexedDB databases (session and service worker kept). */
   async function forgetTheData() {
     const page = await context.newPage();
-    await page.goto(`${baseUrl}/sign-in`);
+    // A page of this origin that is not the app (the app would open Today and its database).
+    await page.goto(`${baseUrl}/api/health`);
     await page.evaluate(async () => {
       const idb = globalThis.indexedDB;
       for (const { name } of await idb.databases()) {
