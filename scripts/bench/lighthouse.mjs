@@ -55,7 +55,7 @@ const context = await chromium.launchPersistentContext(profile, {
 try {
   const port = Number(readFileSync(join(profile, 'DevToolsActivePort'), 'utf8').split('\n')[0]);
 
-  async function audit(url, disableStorageReset, name) {
+  async function audit(url, disableStorageReset, name, retried = false) {
     const result = await lighthouse(url, {
       port,
       output: 'json',
@@ -65,6 +65,10 @@ try {
     });
     const lhr = result?.lhr;
     if (!lhr) throw new Error(`Lighthouse gave no result for ${url}`);
+    // Now and then the trace misses its navigation start on a busy machine: run it again once.
+    if (lhr.runtimeError?.code === 'NO_NAVSTART' && !retried) {
+      return audit(url, disableStorageReset, name, true);
+    }
     if (lhr.runtimeError) throw new Error(`${url}: ${lhr.runtimeError.message}`);
     if (reportDir) writeFileSync(join(reportDir, `${name}.json`), JSON.stringify(lhr));
     const a = lhr.audits;
