@@ -1,4 +1,5 @@
 import { Injectable } from '@nestjs/common';
+import { createSecretKey } from 'node:crypto';
 import { ConfigService } from '@nestjs/config';
 import { PassportStrategy } from '@nestjs/passport';
 import { InjectDataSource } from '@nestjs/typeorm';
@@ -27,7 +28,14 @@ export class JwtStrategy extends PassportStrategy(Strategy) {
   ) {
     super({
       jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(),
-      secretOrKey: config.get('JWT_SECRET', { infer: true }),
+      // A key object, not the string: given a string, the verifier (jsonwebtoken) first tries
+      // to read it as a public key and makes a secret key only when that throws — a couple of
+      // milliseconds of CPU per request. It takes a KeyObject as is; passport-jwt's types only
+      // name string | Buffer, hence the cast.
+      secretOrKey: createSecretKey(
+        config.get('JWT_SECRET', { infer: true }),
+        'utf8',
+      ) as unknown as Buffer,
       algorithms: ['HS256'],
       ignoreExpiration: false,
     });
