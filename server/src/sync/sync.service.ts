@@ -13,7 +13,6 @@ import type { Actor } from '../auth/current-user.decorator';
 import { CommandBus, lockBusinessWrites } from '../commands/command-bus.service';
 import { toErrorBody } from '../common/all-exceptions.filter';
 import { AppException, type ErrorBody } from '../common/app.exception';
-import { User } from '../users/user.entity';
 import type { PullQueryDto, PushDto } from './dto/sync.dto';
 import { SyncClient } from './sync-client.entity';
 import { SyncRejection } from './sync-rejection.entity';
@@ -175,17 +174,15 @@ export class SyncService {
     this.checkRole(actor);
     const limit = query.limit ?? DEFAULT_PULL_LIMIT;
     return this.db.transaction('REPEATABLE READ', async (m) => {
-      const user = await m.findOne(User, { where: { id: actor.userId } });
-      const scope = user?.scopeEpoch ?? 0;
+      // The caller's scope, the device's progress and which tables changed: one round trip.
+      const start = await this.pullStart(m, actor, query, query.cursor);
+      const { scope, lastMutationId } = start;
       const reset = query.cursor > 0 && query.scope !== scope;
       const cursor = reset ? 0 : query.cursor;
-      const lastMutationId =
-        (await m.findOne(SyncClient, { where: { clientId: query.clientId, userId: actor.userId } }))
-          ?.lastMutationId ?? 0;
+      const changed = reset ? (await this.pullStart(m, actor, query, 0)).changed : start.changed;
 
       const pages = new Map<SyncTable, SyncRow[]>();
       let truncatedAt = Number.POSITIVE_INFINITY;
-      const changed = await this.changedTables(m, actor.businessId, cursor);
       for (const table of SYNC_TABLES) {
         if (!changed.has(table)) continue;
         const qb = this.scoped(m, actor, table);
@@ -232,20 +229,34 @@ export class SyncService {
   }
 
   /**
-   * The tables with any row of the business above the cursor, in one round trip (an index probe
-   * each): a phone pulling every few minutes finds changes in a few tables, not in all of them.
+   * In one round trip: the caller's scope epoch, the device's last dealt-with mutation, and the
+   * tables with any row of the business above the cursor (an index probe each) — a phone pulling
+   * every few minutes finds changes in a few tables, not in all of them.
    */
-  private async changedTables(
+  private async pullStart(
     m: EntityManager,
-    businessId: string,
+    actor: Actor,
+    query: PullQueryDto,
     cursor: number,
-  ): Promise<Set<SyncTable>> {
+  ): Promise<{ scope: number; lastMutationId: number; changed: Set<SyncTable> }> {
     const probes = SYNC_TABLES.map(
       (t, i) =>
         `SELECT ${i} AS i WHERE EXISTS (SELECT 1 FROM "${t}" WHERE business_id = $1 AND version > $2)`,
     );
-    const rows: { i: number }[] = await m.query(probes.join(' UNION ALL '), [businessId, cursor]);
-    return new Set(rows.map((r) => SYNC_TABLES[r.i]!));
+    const [row] = await m.query<
+      { scope: number | null; last_mutation_id: string | null; changed: number[] }[]
+    >(
+      `SELECT (SELECT scope_epoch FROM users WHERE id = $3) AS scope,
+              (SELECT last_mutation_id FROM sync_clients WHERE client_id = $4 AND user_id = $3)
+                AS last_mutation_id,
+              ARRAY(${probes.join(' UNION ALL ')}) AS changed`,
+      [actor.businessId, cursor, actor.userId, query.clientId],
+    );
+    return {
+      scope: row?.scope ?? 0,
+      lastMutationId: Number(row?.last_mutation_id ?? 0),
+      changed: new Set((row?.changed ?? []).map((i) => SYNC_TABLES[i]!)),
+    };
   }
 
   private scoped(
