@@ -11,7 +11,19 @@ const DAY = 24 * HOUR;
 
 /** "14:32" (or "2:32 PM" where the phone's language says so). */
 export function clockTime(ms: number, locale?: string): string {
-  return new Date(ms).toLocaleTimeString(locale, { timeStyle: 'short' });
+  return shortTimeFormat(locale).format(ms);
+}
+
+/** One formatter per locale, made once: making one costs far more than formatting with it. */
+const shortTimeFormats = new Map<string, Intl.DateTimeFormat>();
+function shortTimeFormat(locale: string | undefined): Intl.DateTimeFormat {
+  const key = locale ?? '';
+  let format = shortTimeFormats.get(key);
+  if (!format) {
+    format = new Intl.DateTimeFormat(locale, { timeStyle: 'short' });
+    shortTimeFormats.set(key, format);
+  }
+  return format;
 }
 
 /**

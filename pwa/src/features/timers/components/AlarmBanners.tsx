@@ -5,9 +5,10 @@ import type { TimerRow } from '@panelpass/shared';
 import { useChanges } from '../../../sync/useChanges';
 import { KIND_WORDS, kindOf, remainingText } from '../model/timerWords';
 import { KIND_ICONS, stateLook } from './kindLook';
+import { clockTime } from '../../prep/kit/time';
 
 function clock(iso: string): string {
-  return new Date(iso).toLocaleTimeString(undefined, { timeStyle: 'short' });
+  return clockTime(Date.parse(iso));
 }
 
 /**

@@ -12,6 +12,7 @@ import {
   timerState,
 } from '../model/timerWords';
 import { KIND_ICONS, stateLook } from './kindLook';
+import { clockTime } from '../../prep/kit/time';
 
 export interface TimerCardProps {
   timer: TimerRow;
@@ -24,7 +25,7 @@ export interface TimerCardProps {
 }
 
 function clock(iso: string): string {
-  return new Date(iso).toLocaleTimeString(undefined, { timeStyle: 'short' });
+  return clockTime(Date.parse(iso));
 }
 
 /**
