@@ -9,22 +9,9 @@ const MINUTE = 60 * SECOND;
 const HOUR = 60 * MINUTE;
 const DAY = 24 * HOUR;
 
-/** "14:32" (or "2:32 PM" where the phone's language says so). */
-export function clockTime(ms: number, locale?: string): string {
-  return shortTimeFormat(locale).format(ms);
-}
+import { clockTime } from './clockTime';
 
-/** One formatter per locale, made once: making one costs far more than formatting with it. */
-const shortTimeFormats = new Map<string, Intl.DateTimeFormat>();
-function shortTimeFormat(locale: string | undefined): Intl.DateTimeFormat {
-  const key = locale ?? '';
-  let format = shortTimeFormats.get(key);
-  if (!format) {
-    format = new Intl.DateTimeFormat(locale, { timeStyle: 'short' });
-    shortTimeFormats.set(key, format);
-  }
-  return format;
-}
+export { clockTime };
 
 /**
  * The time, with the day when it is not the same day as `nowMs`: "14:05", "14:05 tomorrow",

@@ -5,7 +5,7 @@ import type { TimerRow } from '@panelpass/shared';
 import { useChanges } from '../../../sync/useChanges';
 import { KIND_WORDS, kindOf, remainingText } from '../model/timerWords';
 import { KIND_ICONS, stateLook } from './kindLook';
-import { clockTime } from '../../prep/kit/time';
+import { clockTime } from '../../prep/kit/clockTime';
 
 function clock(iso: string): string {
   return clockTime(Date.parse(iso));

@@ -12,7 +12,7 @@ import {
   timerState,
 } from '../model/timerWords';
 import { KIND_ICONS, stateLook } from './kindLook';
-import { clockTime } from '../../prep/kit/time';
+import { clockTime } from '../../prep/kit/clockTime';
 
 export interface TimerCardProps {
   timer: TimerRow;
