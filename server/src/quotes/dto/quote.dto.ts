@@ -5,6 +5,7 @@ import {
   ArrayUnique,
   IsArray,
   IsDate,
+  IsDefined,
   IsIn,
   IsInt,
   IsOptional,
@@ -122,6 +123,8 @@ export class QuoteFieldsDto {
   @IsUUID()
   vehicleId: string;
 
+  // ValidateNested alone lets a missing value through.
+  @IsDefined()
   @ValidateNested()
   @Type(() => QuoteInputsDto)
   inputs: QuoteInputsDto;
