@@ -34,6 +34,20 @@ export async function jobInScope(m: EntityManager, actor: Actor, jobId: string):
   return job;
 }
 
+/**
+ * The SQL condition of `jobInScope` on a jobs table aliased `t` (tombstones left out), its
+ * values appended to `params`.
+ */
+export function jobScopeSql(actor: Actor, jobId: string, params: unknown[]): string {
+  const p = (v: unknown) => `$${params.push(v)}`;
+  const where = [`t.id = ${p(jobId)}`, `t.business_id = ${p(actor.businessId)}`];
+  if (actor.role === 'tech') where.push(`t.assigned_tech_id = ${p(actor.userId)}`);
+  if (actor.role === 'customer')
+    where.push(`t.customer_id = ${p(actor.customerId ?? '00000000-0000-0000-0000-000000000000')}`);
+  where.push('t.deleted_at IS NULL');
+  return where.join(' AND ');
+}
+
 /** Refuses a write made against an older version of the record (someone changed it since). */
 export function checkVersion(
   row: { version: number },

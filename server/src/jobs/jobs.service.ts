@@ -11,13 +11,20 @@ import {
   visitWindowProblem,
   type BodyStyle,
 } from '@panelpass/shared';
-import { Brackets, DataSource, EntityManager, In } from 'typeorm';
+import { DataSource, EntityManager, In } from 'typeorm';
 import type { Actor } from '../auth/current-user.decorator';
 import { CommandBus } from '../commands/command-bus.service';
 import { command, type CommandContext } from '../commands/command.types';
-import { AppException } from '../common/app.exception';
+import { AppException, notFound } from '../common/app.exception';
 import { likePattern, type Page } from '../common/dto/page.dto';
-import { alreadyCreated, checkVersion, findInBusiness, jobInScope } from '../common/scope';
+import {
+  alreadyCreated,
+  checkVersion,
+  findInBusiness,
+  jobInScope,
+  jobScopeSql,
+} from '../common/scope';
+import { jsonRows } from '../database/json-rows';
 import { Customer } from '../customers/customer.entity';
 import { ChecklistItem } from '../checklist/checklist-item.entity';
 import { JobPanel } from '../panels/job-panel.entity';
@@ -256,60 +263,80 @@ export class JobsService implements OnModuleInit {
   async list(actor: Actor, query: JobQueryDto): Promise<Page<JobSummary>> {
     const limit = query.limit ?? 50;
     const offset = query.offset ?? 0;
-    const qb = this.db
-      .getRepository(Job)
-      .createQueryBuilder('j')
-      .innerJoin(Customer, 'c', 'c.id = j.customer_id')
-      .where('j.business_id = :b', { b: actor.businessId })
-      .orderBy('j.windowStart', 'ASC')
-      .addOrderBy('j.id', 'ASC')
-      // Plain LIMIT/OFFSET: the joins are one-to-one, so TypeORM's DISTINCT paging query
-      // (take/skip) would only add a round trip.
-      .limit(limit)
-      .offset(offset);
-    if (actor.role === 'tech') qb.andWhere('j.assigned_tech_id = :u', { u: actor.userId });
-    if (actor.role === 'customer') qb.andWhere('j.customer_id = :cid', { cid: actor.customerId });
-    if (query.stage) qb.andWhere('j.stage = :stage', { stage: query.stage });
+    const params: unknown[] = [actor.businessId];
+    const p = (v: unknown) => `$${params.push(v)}`;
+    const where = ['j.business_id = $1', 'j.deleted_at IS NULL', 'c.deleted_at IS NULL'];
+    if (actor.role === 'tech') where.push(`j.assigned_tech_id = ${p(actor.userId)}`);
+    if (actor.role === 'customer') where.push(`j.customer_id = ${p(actor.customerId)}`);
+    if (query.stage) where.push(`j.stage = ${p(query.stage)}`);
     if (query.from) {
       // A window lasts at most MAX_VISIT_WINDOW_MS, so a visit overlapping the range starts no
       // earlier than that before it: the (business, window start) index reads only the range,
       // not every earlier visit of the business.
-      qb.andWhere('j.window_end >= :from', { from: query.from }).andWhere(
-        'j.window_start >= :earliest',
-        { earliest: new Date(query.from.getTime() - MAX_VISIT_WINDOW_MS) },
-      );
+      where.push(`j.window_end >= ${p(query.from)}`);
+      where.push(`j.window_start >= ${p(new Date(query.from.getTime() - MAX_VISIT_WINDOW_MS))}`);
     }
-    if (query.to) qb.andWhere('j.window_start < :to', { to: query.to });
+    if (query.to) where.push(`j.window_start < ${p(query.to)}`);
+    let join = '';
     if (query.q) {
-      const q = likePattern(query.q);
-      qb.innerJoin(Vehicle, 'v', 'v.id = j.vehicle_id').andWhere(
-        new Brackets((w) =>
-          w
-            .where('c.name ILIKE :q', { q })
-            .orWhere('j.address ILIKE :q', { q })
-            .orWhere("concat_ws(' ', v.make, v.model, v.colour, v.plate) ILIKE :q", { q }),
-        ),
+      const q = p(likePattern(query.q));
+      join = 'INNER JOIN vehicles v ON v.id = j.vehicle_id AND v.deleted_at IS NULL';
+      where.push(
+        `(c.name ILIKE ${q} OR j.address ILIKE ${q} OR concat_ws(' ', v.make, v.model, v.colour, v.plate) ILIKE ${q})`,
       );
     }
-    const [jobs, total] = await qb.getManyAndCount();
-    return { items: await this.summarize(this.db.manager, actor, jobs), total, limit, offset };
+    const from = `FROM jobs j INNER JOIN customers c ON c.id = j.customer_id AND c.deleted_at IS NULL ${join}
+      WHERE ${where.join(' AND ')}`;
+    const jobRows = jsonRows(this.db, Job);
+    // One statement: the page (the joins are one to one, so plain LIMIT/OFFSET), the count
+    // (a window count over the same rows; counted apart only past the end), and what the
+    // summaries need.
+    const [row] = await this.db.query<
+      (SummaryParts & { jobs: unknown[][]; total: string | null })[]
+    >(
+      `WITH j AS MATERIALIZED (
+         SELECT j.*, count(*) OVER () AS total_count ${from}
+         ORDER BY j.window_start ASC, j.id ASC LIMIT ${p(limit)} OFFSET ${p(offset)})
+       SELECT (SELECT coalesce(json_agg(${jobRows.row('j')} ORDER BY j.window_start, j.id), '[]'::json)
+                 FROM j) AS jobs,
+              (SELECT total_count FROM j LIMIT 1) AS total,
+              ${summarySql(this.db)}`,
+      params,
+    );
+    const jobs = jobRows.hydrateAll(row?.jobs);
+    let total = Number(row?.total ?? 0);
+    if (!jobs.length && offset > 0) {
+      // Past the end: counted without the page.
+      const [counted] = await this.db.query<{ n: number }[]>(
+        `SELECT count(*)::int AS n ${from}`,
+        params.slice(0, params.length - 2),
+      );
+      total = counted?.n ?? 0;
+    }
+    return { items: this.summarizeWith(actor, jobs, row!), total, limit, offset };
   }
 
   async get(actor: Actor, id: string): Promise<JobSummary> {
-    const job = await jobInScope(this.db.manager, actor, id);
-    const [summary] = await this.summarize(this.db.manager, actor, [job]);
-    return summary!;
+    const params: unknown[] = [];
+    const [row] = await this.db.query<(SummaryParts & { job: unknown[] | null })[]>(
+      `WITH j AS MATERIALIZED (SELECT t.* FROM jobs t WHERE ${jobScopeSql(actor, id, params)})
+       SELECT (SELECT ${jsonRows(this.db, Job).row('j')} FROM j) AS job, ${summarySql(this.db)}`,
+      params,
+    );
+    if (!row?.job) throw notFound('Job');
+    const job = jsonRows(this.db, Job).hydrate(row.job);
+    return this.summarizeWith(actor, [job], row)[0]!;
   }
 
-  /** Adds names and the amount due; strips the price for a helper and the notes for a customer. */
-  async summarize(m: EntityManager, actor: Actor, jobs: Job[]): Promise<JobSummary[]> {
+  /**
+   * Adds names and the amount due; strips the price for a helper and the notes for a customer.
+   * `parts` are the jobs' customers, vehicles and payments as `summarySql` reads them.
+   */
+  summarizeWith(actor: Actor, jobs: Job[], parts: SummaryParts): JobSummary[] {
     if (!jobs.length) return [];
-    const ids = jobs.map((j) => j.id);
-    const [customers, vehicles, payments] = await Promise.all([
-      m.find(Customer, { where: { id: In(jobs.map((j) => j.customerId)) }, withDeleted: true }),
-      m.find(Vehicle, { where: { id: In(jobs.map((j) => j.vehicleId)) }, withDeleted: true }),
-      m.find(Payment, { where: { jobId: In(ids) } }),
-    ]);
+    const customers = jsonRows(this.db, Customer).hydrateAll(parts.customers);
+    const vehicles = jsonRows(this.db, Vehicle).hydrateAll(parts.vehicles);
+    const payments = jsonRows(this.db, Payment).hydrateAll(parts.payments);
     const customerName = new Map(customers.map((c) => [c.id, c.name]));
     const vehicleLabel = new Map(
       vehicles.map((v) => [
@@ -317,8 +344,15 @@ export class JobsService implements OnModuleInit {
         [v.colour, v.make, v.model].filter(Boolean).join(' ') || v.bodyStyle,
       ]),
     );
+    const paymentsOf = new Map<string, Payment[]>();
+    for (const p of payments) {
+      if (!p.jobId) continue;
+      const list = paymentsOf.get(p.jobId);
+      if (list) list.push(p);
+      else paymentsOf.set(p.jobId, [p]);
+    }
     return jobs.map((job) => {
-      const own = payments.filter((p) => p.jobId === job.id);
+      const own = paymentsOf.get(job.id) ?? [];
       const { priceMinor, notes, ...rest } = job;
       return {
         ...rest,
@@ -367,4 +401,23 @@ function checkWindow(start: Date, end: Date): void {
       { field: 'windowEnd', rules: { maxLength: problem } },
     ]);
   }
+}
+
+/** What summarizing jobs needs besides the jobs, as JSON rows (see `summarySql`). */
+export interface SummaryParts {
+  customers: unknown[][];
+  vehicles: unknown[][];
+  payments: unknown[][];
+}
+
+/**
+ * Scalar subqueries naming the customers, vehicles (tombstones included: an old job keeps its
+ * names) and payments of the jobs of a CTE `j`, as `customers`, `vehicles` and `payments`.
+ */
+export function summarySql(ds: DataSource): string {
+  return [
+    `${jsonRows(ds, Customer).list('t.id IN (SELECT customer_id FROM j)')} AS customers`,
+    `${jsonRows(ds, Vehicle).list('t.id IN (SELECT vehicle_id FROM j)')} AS vehicles`,
+    `${jsonRows(ds, Payment).list('t.job_id IN (SELECT id FROM j) AND t.deleted_at IS NULL')} AS payments`,
+  ].join(',\n');
 }

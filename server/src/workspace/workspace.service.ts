@@ -15,7 +15,7 @@ import {
   type PanelState,
   type Substrate,
 } from '@panelpass/shared';
-import { DataSource, In } from 'typeorm';
+import { DataSource, type EntityTarget, type ObjectLiteral } from 'typeorm';
 import type { Actor } from '../auth/current-user.decorator';
 import { ChecklistItem } from '../checklist/checklist-item.entity';
 import { ChipLayer } from '../chips/chip-layer.entity';
@@ -23,9 +23,12 @@ import { Chip } from '../chips/chip.entity';
 import { chipPlan, type ChipPlanAnswer } from '../chips/plan';
 import { ClimateReading } from '../climate/climate-reading.entity';
 import { describeClimate, type ClimateAnswer } from '../climate/climate.service';
-import { jobInScope } from '../common/scope';
+import { notFound } from '../common/app.exception';
+import { jobScopeSql } from '../common/scope';
+import { jsonRows } from '../database/json-rows';
+import { Job } from '../jobs/job.entity';
 import { Customer } from '../customers/customer.entity';
-import { JobsService, type JobSummary } from '../jobs/jobs.service';
+import { JobsService, summarySql, type JobSummary, type SummaryParts } from '../jobs/jobs.service';
 import { MaskingItem } from '../masking/masking-item.entity';
 import { describeMask, type MaskAnswer } from '../masking/masking.service';
 import { JobPanel } from '../panels/job-panel.entity';
@@ -101,53 +104,61 @@ export class WorkspaceService {
 
   /** Everything the job's screens show, with every computed value from @panelpass/shared. */
   async get(actor: Actor, jobId: string): Promise<Workspace> {
-    const m = this.db.manager;
-    const job = await jobInScope(m, actor, jobId);
-    const where = { jobId: job.id, businessId: actor.businessId };
-    const [
-      [summary],
-      customer,
-      vehicle,
-      panels,
-      readings,
-      passes,
-      pins,
-      chips,
-      layers,
-      solvents,
-      masking,
-      timers,
-      checklist,
-      climate,
-    ] = await Promise.all([
-      this.jobs.summarize(m, actor, [job]),
-      m.findOneOrFail(Customer, { where: { id: job.customerId }, withDeleted: true }),
-      m.findOneOrFail(Vehicle, { where: { id: job.vehicleId }, withDeleted: true }),
-      m.find(JobPanel, { where, order: { position: 'ASC' } }),
-      m.find(FilmReading, { where, order: { takenAt: 'ASC', version: 'ASC' } }),
-      m.find(CorrectionPass, { where }),
-      m.find(DamagePin, { where, order: { number: 'ASC' } }),
-      m.find(Chip, { where, order: { number: 'ASC' } }),
-      m.find(ChipLayer, { where, order: { appliedAt: 'ASC', version: 'ASC' } }),
-      m.find(SolventApplication, { where, order: { appliedAt: 'ASC' } }),
-      m.find(MaskingItem, { where, order: { appliedAt: 'ASC' } }),
-      m.find(Timer, { where, order: { endsAt: 'ASC' } }),
-      m.find(ChecklistItem, { where, order: { position: 'ASC' } }),
-      m.find(ClimateReading, { where, order: { takenAt: 'ASC' } }),
-    ]);
-    const productIds = [
-      ...passes.map((p) => p.productId),
-      ...chips.map((c) => c.productId),
-      ...layers.map((l) => l.productId),
-      ...solvents.map((s) => s.productId),
-      ...masking.map((k) => k.productId),
-    ].filter((id): id is string => !!id);
-    const products = productIds.length
-      ? await m.find(Product, {
-          where: { id: In([...new Set(productIds)]), businessId: actor.businessId },
-          withDeleted: true,
-        })
-      : [];
+    // The job in the actor's scope and everything of it, in one statement (one snapshot).
+    const params: unknown[] = [];
+    const scope = jobScopeSql(actor, jobId, params);
+    const b = `$${params.push(actor.businessId)}`;
+    const of = `t.job_id = $1 AND t.business_id = ${b} AND t.deleted_at IS NULL`;
+    const own = (table: string) =>
+      `SELECT product_id FROM ${table} WHERE job_id = $1 AND business_id = ${b} AND deleted_at IS NULL`;
+    const r = <T extends ObjectLiteral>(entity: EntityTarget<T>) => jsonRows(this.db, entity);
+    const [row] = await this.db.query<(SummaryParts & Record<string, unknown[][] | null>)[]>(
+      `WITH j AS MATERIALIZED (SELECT t.* FROM jobs t WHERE ${scope})
+       SELECT (SELECT ${r(Job).row('j')} FROM j) AS job,
+         ${summarySql(this.db)},
+         ${r(JobPanel).list(of, 't.position ASC')} AS panels,
+         ${r(FilmReading).list(of, 't.taken_at ASC, t.version ASC')} AS readings,
+         ${r(CorrectionPass).list(of)} AS passes,
+         ${r(DamagePin).list(of, 't.number ASC')} AS pins,
+         ${r(Chip).list(of, 't.number ASC')} AS chips,
+         ${r(ChipLayer).list(of, 't.applied_at ASC, t.version ASC')} AS layers,
+         ${r(SolventApplication).list(of, 't.applied_at ASC')} AS solvents,
+         ${r(MaskingItem).list(of, 't.applied_at ASC')} AS masking,
+         ${r(Timer).list(of, 't.ends_at ASC')} AS timers,
+         ${r(ChecklistItem).list(of, 't.position ASC')} AS checklist,
+         ${r(ClimateReading).list(of, 't.taken_at ASC')} AS climate,
+         ${r(Product).list(
+           `t.business_id = ${b} AND t.id IN (${[
+             'correction_passes',
+             'chips',
+             'chip_layers',
+             'solvent_applications',
+             'masking_items',
+           ]
+             .map(own)
+             .join(' UNION ')})`,
+           't.id',
+         )} AS products`,
+      params,
+    );
+    if (!row?.job) throw notFound('Job');
+    const job = r(Job).hydrate(row.job);
+    const [summary] = this.jobs.summarizeWith(actor, [job], row);
+    const customer = r(Customer).hydrateAll(row.customers)[0];
+    const vehicle = r(Vehicle).hydrateAll(row.vehicles)[0];
+    if (!customer || !vehicle) throw new Error(`Job ${job.id} without its customer or vehicle`);
+    const panels = r(JobPanel).hydrateAll(row.panels);
+    const readings = r(FilmReading).hydrateAll(row.readings);
+    const passes = r(CorrectionPass).hydrateAll(row.passes);
+    const pins = r(DamagePin).hydrateAll(row.pins);
+    const chips = r(Chip).hydrateAll(row.chips);
+    const layers = r(ChipLayer).hydrateAll(row.layers);
+    const solvents = r(SolventApplication).hydrateAll(row.solvents);
+    const masking = r(MaskingItem).hydrateAll(row.masking);
+    const timers = r(Timer).hydrateAll(row.timers);
+    const checklist = r(ChecklistItem).hydrateAll(row.checklist);
+    const climate = r(ClimateReading).hydrateAll(row.climate);
+    const products = r(Product).hydrateAll(row.products);
     const productById = new Map(products.map((p) => [p.id, p]));
     const product = (id: string | null | undefined) => (id ? (productById.get(id) ?? null) : null);
     const now = Date.now();

@@ -1,0 +1,111 @@
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import { DataSource, type ObjectLiteral } from 'typeorm';
+import { CommandBus } from '../src/commands/command-bus.service';
+import { dataSourceOptions } from '../src/database/data-source';
+import { entities } from '../src/database/entities';
+import { jsonRows } from '../src/database/json-rows';
+import { seedDemo } from '../src/database/seeds/run-seed';
+import { createTestApp } from './support/app';
+
+/**
+ * Reads that fetch several tables in one statement (workspace, job, jobs list, sync pull) make
+ * their entities from JSON rows (src/database/json-rows.ts). Rule: for every entity, the
+ * objects are those TypeORM's own `find` makes — same class, same properties in the same order,
+ * same values and types — on the demo week plus awkward values (microseconds, dates before
+ * 1970, NaN and infinities, trailing zeros of numeric, tombstones).
+ */
+const baseUrl = process.env.DATABASE_URL!;
+const scratchName = `json_rows_${process.pid}`;
+const scratchUrl = baseUrl.replace(/\/[^/]+$/, `/${scratchName}`);
+
+describe('JSON rows read like TypeORM', () => {
+  let admin: DataSource;
+  let app: NestExpressApplication;
+  let ds: DataSource;
+
+  beforeAll(async () => {
+    admin = await new DataSource({ type: 'postgres', url: baseUrl }).initialize();
+    await admin.query(`DROP DATABASE IF EXISTS "${scratchName}"`);
+    await admin.query(`CREATE DATABASE "${scratchName}"`);
+    const migrate = await new DataSource(dataSourceOptions(scratchUrl)).initialize();
+    await migrate.runMigrations({ transaction: 'each' });
+    await migrate.destroy();
+    app = await createTestApp({ DATABASE_URL: scratchUrl });
+    ds = app.get(DataSource);
+    expect(await seedDemo(ds, app.get(CommandBus))).toBe(true);
+    // Awkward values where the demo has none.
+    await ds.query(`UPDATE jobs SET window_start = '2026-03-01 10:00:00.999999+00',
+      lat = 'NaN', lng = '-Infinity' WHERE id = (SELECT id FROM jobs ORDER BY id LIMIT 1)`);
+    await ds.query(`UPDATE jobs SET window_start = '1969-12-31 23:59:59.9995+00', lat = NULL,
+      deleted_at = now() WHERE id = (SELECT id FROM jobs ORDER BY id DESC LIMIT 1)`);
+    await ds.query(`UPDATE film_readings SET readings_um = '{101.25,NaN,Infinity,-0,0.1}'
+      WHERE id = (SELECT id FROM film_readings ORDER BY id LIMIT 1)`);
+    await ds.query(
+      `UPDATE job_panels SET area_m2 = 1.500 WHERE id = (SELECT id FROM job_panels ORDER BY id LIMIT 1)`,
+    );
+  });
+  afterAll(async () => {
+    await app.close();
+    await admin.query(`DROP DATABASE IF EXISTS "${scratchName}" WITH (FORCE)`);
+    await admin.destroy();
+  });
+
+  it('makes the same entities as find() for every table', async () => {
+    let withRows = 0;
+    for (const entity of entities) {
+      const meta = ds.getMetadata(entity);
+      const key = meta.primaryColumns.map((c) => `t."${c.databaseName}"`).join(', ');
+      const order = Object.fromEntries(meta.primaryColumns.map((c) => [c.propertyName, 'ASC']));
+      const expected: ObjectLiteral[] = await ds
+        .getRepository<ObjectLiteral>(entity)
+        .find({ withDeleted: true, order });
+      const reader = jsonRows<ObjectLiteral>(ds, entity);
+      const [{ rows }] = await ds.query<[{ rows: unknown[][] }]>(
+        `SELECT ${reader.list('true', key)} AS rows`,
+      );
+      const actual = reader.hydrateAll(rows);
+      expect({ table: meta.tableName, n: actual.length }).toEqual({
+        table: meta.tableName,
+        n: expected.length,
+      });
+      if (expected.length) withRows++;
+      actual.forEach((row, i) => {
+        const want = expected[i]!;
+        expect(Object.getPrototypeOf(row)).toBe(Object.getPrototypeOf(want));
+        expect(Object.keys(row)).toEqual(Object.keys(want));
+        for (const k of Object.keys(want)) {
+          const a: unknown = row[k];
+          const b: unknown = want[k];
+          if (b instanceof Date) {
+            expect(a).toBeInstanceOf(Date);
+            expect({ table: meta.tableName, k, t: (a as Date).getTime() }).toEqual({
+              table: meta.tableName,
+              k,
+              t: b.getTime(),
+            });
+          } else {
+            // Object.is inside toEqual: NaN equals NaN, -0 is not 0.
+            expect({ table: meta.tableName, k, v: a }).toEqual({ table: meta.tableName, k, v: b });
+          }
+        }
+        expect(JSON.stringify(row)).toBe(JSON.stringify(want));
+      });
+    }
+    // The demo week fills most tables: the comparison is not over empty lists.
+    expect(withRows).toBeGreaterThan(20);
+  });
+
+  it('keeps the awkward values exactly', async () => {
+    const [{ rows }] = await ds.query<[{ rows: unknown[][] }]>(
+      `SELECT ${jsonRows(
+        ds,
+        entities.find((e) => e.name === 'FilmReading')!,
+      ).list('true', 't.id')} AS rows`,
+    );
+    const readings = jsonRows<ObjectLiteral>(
+      ds,
+      entities.find((e) => e.name === 'FilmReading')!,
+    ).hydrateAll(rows);
+    expect(readings[0]!.readingsUm).toEqual([101.25, NaN, Infinity, -0, 0.1]);
+  });
+});
