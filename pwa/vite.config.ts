@@ -88,6 +88,11 @@ export default defineConfig({
     // (the budget in ../.size-limit.mjs, scripts/report-size.mjs, scripts/bench/bundle).
     manifest: true,
     target: 'es2022',
+    // No <link rel="modulepreload"> per dependency of each lazy chunk: adding those links cost
+    // ~30 ms of main thread on every start here (one per chunk, most of them already cached by
+    // the service worker). The browser still fetches a chunk's imports in parallel as it parses
+    // it; CSS of lazy chunks is still loaded by Vite's helper.
+    modulePreload: false,
     rolldownOptions: {
       treeshake: {
         // Ionic and Ionicons do not declare `sideEffects` in their package.json, so every

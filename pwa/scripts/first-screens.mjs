@@ -16,6 +16,7 @@ export const firstScreensGoalKb = 200;
 
 /** The route chunks, as their source paths (manifest keys), besides the entry. */
 export const firstScreenSources = [
+  'src/boot.tsx',
   'src/pages/SignInPage.tsx',
   'src/app/MainTabs.tsx',
   'src/pages/TodayPage.tsx',

@@ -1,18 +1,7 @@
+// The app itself, loaded by main.tsx once the splash has painted.
 import { setupIonicReact } from '@ionic/react';
-import { StrictMode } from 'react';
+import { StrictMode, startTransition } from 'react';
 import { createRoot } from 'react-dom/client';
-
-// Only the Ionic CSS the components need, not the optional utility sheets.
-import '@ionic/react/css/core.css';
-import '@ionic/react/css/normalize.css';
-import '@ionic/react/css/structure.css';
-import '@ionic/react/css/typography.css';
-// Atkinson Hyperlegible, bundled: regular and bold, Latin only.
-import '@fontsource/atkinson-hyperlegible/latin-400.css';
-import '@fontsource/atkinson-hyperlegible/latin-700.css';
-import './theme/variables.css';
-import './theme/app.css';
-
 import { App } from './App';
 import { sessionStore } from './app/services';
 import { redirectFor } from './features/shell/model/access';
@@ -40,8 +29,12 @@ if (sessionStore.get() && window.location.pathname === '/today') {
 const root = document.getElementById('root');
 if (!root) throw new Error('index.html has no #root element');
 
-createRoot(root).render(
-  <StrictMode>
-    <App />
-  </StrictMode>,
-);
+// A transition, so React renders the first screen in slices and the page keeps answering taps
+// (the splash is showing meanwhile).
+startTransition(() => {
+  createRoot(root).render(
+    <StrictMode>
+      <App />
+    </StrictMode>,
+  );
+});

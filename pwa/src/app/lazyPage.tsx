@@ -1,4 +1,11 @@
-import { lazy, Suspense, type ComponentType } from 'react';
+import { lazy, Suspense, useEffect, type ComponentType } from 'react';
+import { hideSplash } from './splash';
+
+/** Takes index.html's splash away once the page beside it has mounted (a no-op after that). */
+function SplashDone() {
+  useEffect(() => hideSplash(), []);
+  return null;
+}
 
 /**
  * A route's page, loaded only when first opened, so the sign-in screen carries none of the
@@ -10,6 +17,7 @@ export function lazyPage(load: () => Promise<{ default: ComponentType }>) {
     return (
       <Suspense fallback={<div className="pp-loading" aria-busy="true" />}>
         <Page />
+        <SplashDone />
       </Suspense>
     );
   }
