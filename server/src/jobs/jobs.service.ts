@@ -25,6 +25,7 @@ import {
   jobScopeSql,
 } from '../common/scope';
 import { jsonRows } from '../database/json-rows';
+import { preparedQuery } from '../database/prepared-query';
 import { Customer } from '../customers/customer.entity';
 import { ChecklistItem } from '../checklist/checklist-item.entity';
 import { JobPanel } from '../panels/job-panel.entity';
@@ -318,7 +319,8 @@ export class JobsService implements OnModuleInit {
 
   async get(actor: Actor, id: string): Promise<JobSummary> {
     const params: unknown[] = [];
-    const [row] = await this.db.query<(SummaryParts & { job: unknown[] | null })[]>(
+    const [row] = await preparedQuery<SummaryParts & { job: unknown[] | null }>(
+      this.db,
       `WITH j AS MATERIALIZED (SELECT t.* FROM jobs t WHERE ${jobScopeSql(actor, id, params)})
        SELECT (SELECT ${jsonRows(this.db, Job).row('j')} FROM j) AS job, ${summarySql(this.db)}`,
       params,

@@ -8,7 +8,9 @@ import {
   type SyncRow,
   type SyncTable,
 } from '@panelpass/shared';
-import { DataSource, EntityManager, ObjectLiteral, SelectQueryBuilder } from 'typeorm';
+import { DataSource, EntityManager, type EntityTarget, type ObjectLiteral } from 'typeorm';
+import { jsonRows } from '../database/json-rows';
+import { preparedQuery } from '../database/prepared-query';
 import type { Actor } from '../auth/current-user.decorator';
 import { CommandBus, lockBusinessWrites } from '../commands/command-bus.service';
 import { toErrorBody } from '../common/all-exceptions.filter';
@@ -18,6 +20,14 @@ import { SyncClient } from './sync-client.entity';
 import { SyncRejection } from './sync-rejection.entity';
 
 const DEFAULT_PULL_LIMIT = 1000;
+
+/** The pull's one row: see `SyncService.pullSql`; `tN` the rows of the N-th table read. */
+interface PullRow {
+  scope: number | null;
+  last_mutation_id: string | null;
+  cut: string | null;
+  [table: `t${number}`]: unknown[][] | null;
+}
 /** Mutations per push transaction: one disk flush per chunk, and a short hold of the write lock. */
 const PUSH_CHUNK = 50;
 
@@ -169,135 +179,138 @@ export class SyncService {
     }
   }
 
-  /** Every row the caller may see with `version > cursor`, tombstones included, a page at a time. */
+  /**
+   * Every row the caller may see with `version > cursor`, tombstones included, a page at a
+   * time — read in one SQL statement (one snapshot, so no transaction), see `pullSql`.
+   */
   async pull(actor: Actor, query: PullQueryDto): Promise<PullResponse> {
     this.checkRole(actor);
     const limit = query.limit ?? DEFAULT_PULL_LIMIT;
-    return this.db.transaction('REPEATABLE READ', async (m) => {
-      // The caller's scope, the device's progress and which tables changed: one round trip.
-      const start = await this.pullStart(m, actor, query, query.cursor);
-      const { scope, lastMutationId } = start;
-      const reset = query.cursor > 0 && query.scope !== scope;
-      const cursor = reset ? 0 : query.cursor;
-      const changed = reset ? (await this.pullStart(m, actor, query, 0)).changed : start.changed;
-
-      const pages = new Map<SyncTable, SyncRow[]>();
-      let truncatedAt = Number.POSITIVE_INFINITY;
-      for (const table of SYNC_TABLES) {
-        if (!changed.has(table)) continue;
-        const qb = this.scoped(m, actor, table);
-        if (!qb) continue;
-        qb.andWhere('t.version > :cursor', { cursor });
-        // Rows above a cut already made would be dropped below anyway: do not read them. (Same
-        // page either way: a table cut short within the bound is cut at the same row.)
-        if (Number.isFinite(truncatedAt)) qb.andWhere('t.version <= :cut', { cut: truncatedAt });
-        const rows = await qb
-          .orderBy('t.version', 'ASC')
-          .take(limit + 1)
-          .getMany();
-        if (rows.length > limit) {
-          rows.length = limit;
-          truncatedAt = Math.min(truncatedAt, (rows[limit - 1] as { version: number }).version);
-        }
-        if (rows.length)
-          pages.set(
-            table,
-            rows.map((r) => this.present(actor, table, r)),
-          );
+    const tables = SYNC_TABLES.filter((t) => this.scopeSql(actor, t) !== null);
+    const [row] = await preparedQuery<PullRow>(this.db, this.pullSql(actor, tables), [
+      actor.businessId,
+      query.cursor,
+      actor.userId,
+      query.clientId,
+      query.scope,
+      limit,
+    ]);
+    if (!row) throw new Error('pull: no answer');
+    const scope = row.scope ?? 0;
+    const reset = query.cursor > 0 && query.scope !== scope;
+    const cursor = reset ? 0 : query.cursor;
+    // Where a table was cut short by the page limit (the lowest such cut): keep only what lies
+    // at or below it in every table, so the next page (from the new cursor) misses nothing.
+    const more = row.cut !== null;
+    const truncatedAt = more ? Number(row.cut) : Number.POSITIVE_INFINITY;
+    let newCursor = cursor;
+    const changes: PullResponse['changes'] = {};
+    tables.forEach((table, i) => {
+      const raw = row[`t${i}`];
+      if (!raw?.length) return;
+      const reader = jsonRows<ObjectLiteral>(this.db, this.entityOf(table));
+      const rows: SyncRow[] = [];
+      for (const values of raw.slice(0, limit)) {
+        const r = this.present(actor, table, reader.hydrate(values));
+        if (r.version <= truncatedAt) rows.push(r);
       }
-      // When a table was cut short, keep only what lies at or below the cut in every table, so
-      // the next page (from the new cursor) misses nothing.
-      const more = Number.isFinite(truncatedAt);
-      let newCursor = cursor;
-      const changes: PullResponse['changes'] = {};
-      for (const [table, rows] of pages) {
-        const kept = more ? rows.filter((r) => r.version <= truncatedAt) : rows;
-        if (!kept.length) continue;
-        changes[table] = kept;
-        newCursor = Math.max(newCursor, kept[kept.length - 1]!.version);
-      }
-      return {
-        cursor: newCursor,
-        lastMutationId,
-        changes,
-        more,
-        serverTime: Date.now(),
-        reset,
-        scope,
-      };
+      if (!rows.length) return;
+      changes[table] = rows;
+      newCursor = Math.max(newCursor, rows[rows.length - 1]!.version);
     });
-  }
-
-  /**
-   * In one round trip: the caller's scope epoch, the device's last dealt-with mutation, and the
-   * tables with any row of the business above the cursor (an index probe each) — a phone pulling
-   * every few minutes finds changes in a few tables, not in all of them.
-   */
-  private async pullStart(
-    m: EntityManager,
-    actor: Actor,
-    query: PullQueryDto,
-    cursor: number,
-  ): Promise<{ scope: number; lastMutationId: number; changed: Set<SyncTable> }> {
-    const probes = SYNC_TABLES.map(
-      (t, i) =>
-        `SELECT ${i} AS i WHERE EXISTS (SELECT 1 FROM "${t}" WHERE business_id = $1 AND version > $2)`,
-    );
-    const [row] = await m.query<
-      { scope: number | null; last_mutation_id: string | null; changed: number[] }[]
-    >(
-      `SELECT (SELECT scope_epoch FROM users WHERE id = $3) AS scope,
-              (SELECT last_mutation_id FROM sync_clients WHERE client_id = $4 AND user_id = $3)
-                AS last_mutation_id,
-              ARRAY(${probes.join(' UNION ALL ')}) AS changed`,
-      [actor.businessId, cursor, actor.userId, query.clientId],
-    );
     return {
-      scope: row?.scope ?? 0,
-      lastMutationId: Number(row?.last_mutation_id ?? 0),
-      changed: new Set((row?.changed ?? []).map((i) => SYNC_TABLES[i]!)),
+      cursor: newCursor,
+      lastMutationId: Number(row.last_mutation_id ?? 0),
+      changes,
+      more,
+      serverTime: Date.now(),
+      reset,
+      scope,
     };
   }
 
-  private scoped(
-    m: EntityManager,
-    actor: Actor,
-    table: SyncTable,
-  ): SelectQueryBuilder<ObjectLiteral> | null {
+  /**
+   * The pull in one statement. $1 business, $2 cursor, $3 user, $4 device, $5 the scope the
+   * device holds, $6 rows per table. `s`: the caller's scope epoch and the device's last
+   * dealt-with mutation; `c`: the cursor (0 when the scope changed: the device starts over).
+   * Then per table, in SYNC_TABLES order, `pN` reads up to limit + 1 rows above the cursor
+   * through its (business_id, version) index — no more than the cut already made by an
+   * earlier table, since rows above it would be dropped anyway (the page is the same) — and
+   * `kN` carries the cut: the version of the limit-th row of a table that had more.
+   */
+  private pullSql(actor: Actor, tables: SyncTable[]): string {
+    const key = tables.join(',') + actor.role;
+    const cached = this.pullSqlCache.get(key);
+    if (cached) return cached;
+    const none = '9223372036854775807::bigint';
+    const ctes = [
+      `s AS (SELECT (SELECT scope_epoch FROM users WHERE id = $3) AS scope,
+        (SELECT last_mutation_id FROM sync_clients WHERE client_id = $4 AND user_id = $3)
+          AS last_mutation_id)`,
+      `c AS (SELECT CASE WHEN $2::bigint > 0 AND coalesce(s.scope, 0) <> $5::int THEN 0::bigint
+        ELSE $2::bigint END AS cursor FROM s)`,
+    ];
+    tables.forEach((table, i) => {
+      const reader = jsonRows<ObjectLiteral>(this.db, this.entityOf(table));
+      const prev = i === 0 ? none : `(SELECT cut FROM k${i - 1})`;
+      ctes.push(
+        `p${i} AS MATERIALIZED (SELECT t.version, ${reader.row('t')} AS r FROM "${table}" t
+          WHERE t.business_id = $1 AND ${this.scopeSql(actor, table)}
+            AND t.version > (SELECT cursor FROM c) AND t.version <= ${prev}
+          ORDER BY t.version LIMIT $6::int + 1)`,
+        `k${i} AS (SELECT CASE WHEN (SELECT count(*) FROM p${i}) > $6::int
+          THEN LEAST(${prev}, (SELECT version FROM p${i} ORDER BY version OFFSET $6::int - 1 LIMIT 1))
+          ELSE ${prev} END AS cut)`,
+      );
+    });
+    const last = tables.length ? `(SELECT cut FROM k${tables.length - 1})` : none;
+    const sql = `WITH ${ctes.join(',\n')}
+      SELECT s.scope, s.last_mutation_id, NULLIF(${last}, ${none}) AS cut,
+        ${tables.map((_, i) => `(SELECT json_agg(r ORDER BY version) FROM p${i}) AS t${i}`).join(',\n')}
+      FROM s`;
+    this.pullSqlCache.set(key, sql);
+    return sql;
+  }
+
+  private readonly pullSqlCache = new Map<string, string>();
+
+  private entityOf(table: SyncTable): EntityTarget<ObjectLiteral> {
     const meta = this.db.entityMetadatas.find((e) => e.tableName === table);
     if (!meta) throw new Error(`No entity for synced table ${table}`);
-    const qb = m
-      .getRepository<ObjectLiteral>(meta.target)
-      .createQueryBuilder('t')
-      .withDeleted()
-      .where('t.business_id = :b', { b: actor.businessId });
-    if (actor.role === 'owner') return qb;
+    return meta.target;
+  }
+
+  /**
+   * Which rows of `table` (alias `t`, already of the business $1) the caller ($3) may see, as
+   * SQL; null when none. The owner sees everything; a helper the jobs assigned to them and
+   * what hangs off those, their own timers and climate readings, and the Shelf — never money.
+   */
+  private scopeSql(actor: Actor, table: SyncTable): string | null {
+    if (actor.role === 'owner') return 'true';
     if (OWNER_ONLY_TABLES.has(table)) return null;
-    const assigned = 'SELECT j.id FROM jobs j WHERE j.business_id = :b AND j.assigned_tech_id = :u';
-    qb.setParameter('u', actor.userId);
-    if (table === 'jobs') return qb.andWhere('t.assigned_tech_id = :u');
-    if (JOB_CHILD_TABLES.has(table)) return qb.andWhere(`t.job_id IN (${assigned})`);
-    if (table === 'timers') return qb.andWhere(`(t.job_id IN (${assigned}) OR t.started_by = :u)`);
-    if (table === 'climate_readings')
-      return qb.andWhere(`(t.job_id IN (${assigned}) OR t.taken_by = :u)`);
+    const assigned = 'SELECT j.id FROM jobs j WHERE j.business_id = $1 AND j.assigned_tech_id = $3';
+    if (table === 'jobs') return 't.assigned_tech_id = $3';
+    if (JOB_CHILD_TABLES.has(table)) return `t.job_id IN (${assigned})`;
+    if (table === 'timers') return `(t.job_id IN (${assigned}) OR t.started_by = $3)`;
+    if (table === 'climate_readings') return `(t.job_id IN (${assigned}) OR t.taken_by = $3)`;
     if (table === 'customers') {
-      return qb.andWhere(
-        `t.id IN (SELECT j.customer_id FROM jobs j WHERE j.business_id = :b AND j.assigned_tech_id = :u)`,
-      );
+      return `t.id IN (SELECT j.customer_id FROM jobs j WHERE j.business_id = $1 AND j.assigned_tech_id = $3)`;
     }
     if (table === 'vehicles') {
-      return qb.andWhere(
-        `t.id IN (SELECT j.vehicle_id FROM jobs j WHERE j.business_id = :b AND j.assigned_tech_id = :u)`,
-      );
+      return `t.id IN (SELECT j.vehicle_id FROM jobs j WHERE j.business_id = $1 AND j.assigned_tech_id = $3)`;
     }
-    if (table === 'products') return qb;
+    if (table === 'products') return 'true';
     return null;
   }
 
-  private present(actor: Actor, table: SyncTable, row: ObjectLiteral): SyncRow {
+  private present(
+    actor: Actor,
+    table: SyncTable,
+    row: ObjectLiteral,
+  ): SyncRow & { version: number } {
     const out: Record<string, unknown> = { ...row };
     if (actor.role === 'tech') for (const f of HIDDEN_FROM_TECH[table] ?? []) delete out[f];
-    return out as SyncRow;
+    return out as SyncRow & { version: number };
   }
 
   private checkRole(actor: Actor): void {

@@ -26,6 +26,7 @@ import { describeClimate, type ClimateAnswer } from '../climate/climate.service'
 import { notFound } from '../common/app.exception';
 import { jobScopeSql } from '../common/scope';
 import { jsonRows } from '../database/json-rows';
+import { preparedQuery } from '../database/prepared-query';
 import { Job } from '../jobs/job.entity';
 import { Customer } from '../customers/customer.entity';
 import { JobsService, summarySql, type JobSummary, type SummaryParts } from '../jobs/jobs.service';
@@ -112,7 +113,8 @@ export class WorkspaceService {
     const own = (table: string) =>
       `SELECT product_id FROM ${table} WHERE job_id = $1 AND business_id = ${b} AND deleted_at IS NULL`;
     const r = <T extends ObjectLiteral>(entity: EntityTarget<T>) => jsonRows(this.db, entity);
-    const [row] = await this.db.query<(SummaryParts & Record<string, unknown[][] | null>)[]>(
+    const [row] = await preparedQuery<SummaryParts & Record<string, unknown[][] | null>>(
+      this.db,
       `WITH j AS MATERIALIZED (SELECT t.* FROM jobs t WHERE ${scope})
        SELECT (SELECT ${r(Job).row('j')} FROM j) AS job,
          ${summarySql(this.db)},
