@@ -4,9 +4,10 @@ import { ConfigService } from '@nestjs/config';
 import { PassportStrategy } from '@nestjs/passport';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { ExtractJwt, Strategy } from 'passport-jwt';
-import { DataSource, IsNull } from 'typeorm';
+import { DataSource } from 'typeorm';
+import { preparedQuery } from '../database/prepared-query';
 import type { EnvironmentVariables } from '../config/env.validation';
-import { ROLES, type Role, User } from '../users/user.entity';
+import { ROLES, type Role } from '../users/user.entity';
 import type { Actor } from './current-user.decorator';
 
 export interface AccessTokenPayload {
@@ -49,10 +50,13 @@ export class JwtStrategy extends PassportStrategy(Strategy) {
     // The verifier checks `exp` only when present: a token without one would never expire.
     if (typeof payload.exp !== 'number') return false;
     if (payload.role === 'customer' && !payload.cid) return false;
-    const active = await this.db
-      .getRepository(User)
-      .exists({ where: { id: payload.sub, businessId: payload.bid, deletedAt: IsNull() } });
-    if (!active) return false;
+    // Asked on every request: plain SQL as a prepared statement (no query building per request).
+    const active = await preparedQuery(
+      this.db,
+      'SELECT 1 FROM users WHERE id = $1 AND business_id = $2 AND deleted_at IS NULL',
+      [payload.sub, payload.bid],
+    );
+    if (!active.length) return false;
     return {
       userId: payload.sub,
       businessId: payload.bid,
