@@ -223,16 +223,22 @@ export class LedgerService {
     const offset = query.offset ?? 0;
     const kinds = query.kind && query.kind.length ? query.kind : null;
     const rows: EntryRow[] = await this.db.query(
-      `${ENTRIES_SQL}
+      // The page first, then the names of its rows only: joined before the LIMIT, the names of
+      // every entry of the range were looked up, and with many entries the planner read the
+      // whole vehicles table (a Seq Scan at scale) instead of a primary-key probe each.
+      `${ENTRIES_SQL},
+       page AS (
+         SELECT e.*, COUNT(*) OVER () AS total FROM e
+         WHERE $5::text[] IS NULL OR e.kind = ANY($5::text[])
+         ORDER BY e.at DESC, e.id
+         LIMIT $6 OFFSET $7)
        SELECT e.kind, e.id, e.at, e.amount_minor, e.currency, e.status, e.method, e.job_id,
          e.invoice_number, c.name AS customer_name, ${vehicleLabelSql('v')} AS vehicle_label,
-         COUNT(*) OVER () AS total
-       FROM e
+         e.total
+       FROM page e
        LEFT JOIN customers c ON c.id = e.customer_id
        LEFT JOIN vehicles v ON v.id = e.vehicle_id
-       WHERE $5::text[] IS NULL OR e.kind = ANY($5::text[])
-       ORDER BY e.at DESC, e.id
-       LIMIT $6 OFFSET $7`,
+       ORDER BY e.at DESC, e.id`,
       [actor.businessId, from, to, biz.timezone, kinds, limit, offset],
     );
     const sumRows: { kind: EntryKind; count: string; amount: string }[] = await this.db.query(
