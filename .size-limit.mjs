@@ -8,12 +8,14 @@
 // "200 kB" = 200,000 bytes, "KiB" would be 1024). pwa/scripts/report-size.mjs and
 // scripts/bench/bundle count the same way.
 //
-// The goal is 200 kB. The limit below is a ratchet at today's figure (≈239.7 kB after moving
+// The goal is 200 kB. The limit below is a ratchet at today's figure (≈232.5 kB after moving
 // Ionic's overlays, other screens' icons, the sync engine and the commands out of the startup
 // chunks, then the sheets opened by a tap and the command catalogue behind photos and
-// signatures, then Ionic's unused ios style sheets; raised once by 1 kB for the cached
-// clock-time formatter, a module of its own that saves a formatter per render): it stops the bundle from growing while the rest of the way to 200 kB is worked on.
-// Lower it with every step down; never raise it without saying why in the commit.
+// signatures, then Ionic's unused ios style sheets, then Vite's preload helper and the second
+// component runtime that `<ion-icon>` brought (icons are inline SVG now, src/components/Icon.tsx);
+// raised once by 1 kB for the cached clock-time formatter, a module of its own that saves a
+// formatter per render): it stops the bundle from growing while the rest of the way to 200 kB
+// is worked on. Lower it with every step down; never raise it without saying why in the commit.
 import { join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { firstScreenFiles, firstScreensGoalKb, pwaDist } from './pwa/scripts/first-screens.mjs';
@@ -26,6 +28,6 @@ export default [
     name: `sign-in + Today JavaScript, gzipped (goal ${firstScreensGoalKb} kB)`,
     path: firstScreenFiles(dist).map((file) => relative(root, join(dist, file))),
     gzip: true,
-    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '241 kB',
+    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '233 kB',
   },
 ];

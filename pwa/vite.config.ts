@@ -2,7 +2,12 @@ import { fileURLToPath } from 'node:url';
 import react from '@vitejs/plugin-react';
 import { defineConfig } from 'vite';
 import { VitePWA } from 'vite-plugin-pwa';
-import { deferIonicOverlays, iconPerModule, ionicMdStylesOnly } from './vite.startup.ts';
+import {
+  deferIonicOverlays,
+  iconPerModule,
+  ionicMdStylesOnly,
+  trimmedIonicReact,
+} from './vite.startup.ts';
 
 const sharedEntry = fileURLToPath(new URL('../shared/src/index.ts', import.meta.url));
 
@@ -15,6 +20,8 @@ export default defineConfig({
     // Keep overlays and other screens' icons out of the startup chunks (see vite.startup.ts).
     iconPerModule(),
     deferIonicOverlays(),
+    // Components @ionic/react builds but the app never uses left out, one component runtime.
+    trimmedIonicReact(),
     // The app pins Ionic's md look; the ios style sheets are emptied (see vite.startup.ts).
     ionicMdStylesOnly(),
     react(),

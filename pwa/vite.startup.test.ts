@@ -2,7 +2,7 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { describe, expect, it } from 'vitest';
-import { dropIosStyles } from './vite.startup';
+import { dropIosStyles, trimIonicReact } from './vite.startup';
 
 const require = createRequire(import.meta.url);
 
@@ -31,5 +31,43 @@ describe('dropIosStyles (the build keeps only the md look of Ionic)', () => {
   it('goes with the app pinning the md look (src/boot.tsx)', () => {
     const main = readFileSync(new URL('./src/boot.tsx', import.meta.url), 'utf8');
     expect(main).toMatch(/setupIonicReact\(\{[^}]*mode: 'md'/);
+  });
+});
+
+describe('trimIonicReact', () => {
+  const sample = [
+    "import { defineCustomElement as defineCustomElement$1k } from 'ionicons/components/ion-icon.js';",
+    "const IonIconInner = /*@__PURE__*/ createReactComponent('ion-icon', undefined, undefined, defineCustomElement$1k);",
+    "const IonNavInner = createReactComponent('ion-nav', undefined, undefined, defineCustomElement$1l);",
+    "const IonIcon = createForwardRef(IonIconContainer, 'IonIcon');",
+    'const IonTabsContext = React.createContext({',
+    '    const inner = createForwardRef(x);',
+  ].join('\n');
+
+  it('takes ion-icon from Ionic core and marks the unmarked top-level component builders pure', () => {
+    const { code, changes } = trimIonicReact(sample);
+    expect(code).toContain("from '@ionic/core/components/ion-icon.js';");
+    expect(code).not.toContain('ionicons/components');
+    expect(code).toContain("const IonNavInner = /*@__PURE__*/ createReactComponent('ion-nav'");
+    expect(code).toContain(
+      "const IonIcon = /*@__PURE__*/ createForwardRef(IonIconContainer, 'IonIcon');",
+    );
+    expect(code).toContain('const IonTabsContext = /*@__PURE__*/ React.createContext({');
+    // Already marked, or not at the top level: left as they were.
+    expect(code).toContain("const IonIconInner = /*@__PURE__*/ createReactComponent('ion-icon'");
+    expect(code).not.toContain('/*@__PURE__*/ /*@__PURE__*/');
+    expect(code).toContain('    const inner = createForwardRef(x);');
+    expect(changes).toBe(4);
+  });
+
+  it('applies to the installed @ionic/react', () => {
+    const installed = readFileSync(require.resolve('@ionic/react'), 'utf8');
+    const { code, changes } = trimIonicReact(installed);
+    expect(code).not.toContain('ionicons/components');
+    expect(changes).toBeGreaterThan(1);
+  });
+
+  it('refuses an @ionic/react that no longer imports ion-icon from ionicons', () => {
+    expect(() => trimIonicReact('const a = 1;')).toThrow(/update vite\.startup\.ts/);
   });
 });

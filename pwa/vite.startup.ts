@@ -182,3 +182,46 @@ export function ionicMdStylesOnly(): Plugin {
     },
   };
 }
+
+/**
+ * Two fixes to @ionic/react's one module, both about code the app does not need at startup:
+ *  - It builds some components at the top level without a `/*@__PURE__*\/` mark
+ *    (`const IonIcon = createForwardRef(…)`, `const IonNavInner = createReactComponent('ion-nav',
+ *    …)`), so the bundler must keep each one, and what it defines, even when the app never uses
+ *    it. These calls only build components; marked pure, the unused ones go.
+ *  - Its IonIcon defines `<ion-icon>` from the ionicons package, which carries a second copy of
+ *    the component runtime (~6 kB gzipped); @ionic/core ships the same element built on its own
+ *    runtime (its back button and toasts use that one), so IonIcon takes it from there.
+ * Returns the code and how many changes it made; throws when Ionic changed the import it
+ * rewrites, so an upgrade cannot quietly bring the second runtime back.
+ */
+export function trimIonicReact(code: string): { code: string; changes: number } {
+  const ioniconsImport = "from 'ionicons/components/ion-icon.js';";
+  if (!code.includes(ioniconsImport)) {
+    throw new Error(
+      '@ionic/react no longer imports ion-icon from ionicons; update vite.startup.ts',
+    );
+  }
+  let changes = 1;
+  const out = code
+    .replace(ioniconsImport, "from '@ionic/core/components/ion-icon.js';")
+    .replace(
+      /^(const \w+ = )(createForwardRef|createReactComponent|React\.createContext|React\.memo)\(/gm,
+      (_all, head: string, call: string) => {
+        changes++;
+        return `${head}/*@__PURE__*/ ${call}(`;
+      },
+    );
+  return { code: out, changes };
+}
+
+export function trimmedIonicReact(): Plugin {
+  return {
+    name: 'panelpass:trimmed-ionic-react',
+    apply: 'build',
+    transform(code, id) {
+      if (!/[\\/]@ionic[\\/]react[\\/]dist[\\/]index\.js$/.test(id)) return null;
+      return { code: trimIonicReact(code).code, map: null };
+    },
+  };
+}

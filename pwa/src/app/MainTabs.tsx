@@ -1,4 +1,4 @@
-import { IonIcon, IonLabel, IonRouterOutlet, IonTabBar, IonTabButton, IonTabs } from '@ionic/react';
+import { IonLabel, IonRouterOutlet, IonTabBar, IonTabButton, IonTabs } from '@ionic/react';
 import {
   calendarClearOutline,
   clipboardOutline,
@@ -14,6 +14,7 @@ import { TimerDock } from '../features/timers/components/TimerDock';
 import { SyncProvider } from '../sync/SyncProvider';
 import { lazyPage } from './lazyPage';
 import { queryClient } from './queryClient';
+import { Icon } from '../components/Icon';
 
 const pages: Record<TabId, ReturnType<typeof lazyPage>> = {
   today: lazyPage(() => import('../pages/TodayPage')),
@@ -68,7 +69,7 @@ function SignedInTabs() {
       <IonTabBar slot="bottom">
         {visible.map((tab) => (
           <IonTabButton key={tab.id} tab={tab.id} href={tab.path}>
-            <IonIcon icon={icons[tab.id]} aria-hidden="true" />
+            <Icon icon={icons[tab.id]} />
             <IonLabel>{tab.label}</IonLabel>
           </IonTabButton>
         ))}

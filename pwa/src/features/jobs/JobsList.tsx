@@ -1,4 +1,3 @@
-import { IonIcon } from '@ionic/react';
 import { searchOutline } from 'ionicons/icons';
 import { useDeferredValue, useId, useMemo, useState } from 'react';
 import { JOB_STAGES, STAGE_LABELS } from '@panelpass/shared';
@@ -9,6 +8,7 @@ import { useJobSummaries } from './hooks/useJobSummaries';
 import { listJobs, stageCounts, type StageFilter } from './model/jobList';
 import { STAGE_ICONS } from './model/stageLook';
 import './components/jobs.css';
+import { Icon } from '../../components/Icon';
 
 function time(ms: number): string {
   return new Date(ms).toLocaleTimeString(undefined, { hour: '2-digit', minute: '2-digit' });
@@ -54,7 +54,7 @@ export default function JobsList() {
           Search jobs
         </label>
         <div className="pp-field__control">
-          <IonIcon className="pp-jobs__search-icon" icon={searchOutline} aria-hidden="true" />
+          <Icon className="pp-jobs__search-icon" icon={searchOutline} />
           <input
             id={searchId}
             className="pp-field__input"
@@ -77,7 +77,7 @@ export default function JobsList() {
             aria-pressed={stage === f}
             onClick={() => setStage(f)}
           >
-            {f === 'all' ? null : <IonIcon icon={STAGE_ICONS[f]} aria-hidden="true" />}
+            {f === 'all' ? null : <Icon icon={STAGE_ICONS[f]} />}
             <span>{f === 'all' ? 'All' : STAGE_LABELS[f]}</span>
             <span className="pp-filter__count">{counts[f]}</span>
           </button>

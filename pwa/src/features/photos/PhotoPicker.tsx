@@ -1,7 +1,7 @@
-import { IonIcon } from '@ionic/react';
 import { cameraOutline } from 'ionicons/icons';
 import { useId, type ChangeEvent } from 'react';
 import './photos.css';
+import { Icon } from '../../components/Icon';
 
 /**
  * A big "Take a photo" button that opens the back camera (`capture="environment"`); on a
@@ -41,7 +41,7 @@ export function PhotoPicker({
         disabled={busy}
         onChange={picked}
       />
-      <IonIcon icon={cameraOutline} aria-hidden="true" />
+      <Icon icon={cameraOutline} />
       <span>{busy ? 'Saving the photo…' : label}</span>
     </label>
   );

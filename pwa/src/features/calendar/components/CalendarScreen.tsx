@@ -1,4 +1,3 @@
-import { IonIcon } from '@ionic/react';
 import { carOutline, chevronBack, chevronForward, warningOutline } from 'ionicons/icons';
 import { Fragment, useId, useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
@@ -27,6 +26,7 @@ import {
   type Leg,
   type Stop,
 } from '../model/calendarLayout';
+import { Icon } from '../../../components/Icon';
 
 const time = (ms: number) =>
   new Date(ms).toLocaleTimeString(undefined, { hour: '2-digit', minute: '2-digit' });
@@ -145,7 +145,7 @@ function StopCard({ stop, canMove }: { stop: Stop<CalendarBooking>; canMove: boo
       <StageTag stage={s.stage} />
       {stop.conflicts.map((c, i) => (
         <p key={`${c.kind}-${c.withId}-${i}`} className="pp-cal__conflict">
-          <IonIcon icon={warningOutline} aria-hidden="true" />
+          <Icon icon={warningOutline} />
           <span>
             {c.kind === 'overlap' ? 'Overlap: ' : 'Tight: '}
             {c.words}
@@ -210,7 +210,7 @@ function DayView({
                 <Fragment key={stop.booking.id}>
                   {leg ? (
                     <li className="pp-cal__leg">
-                      <IonIcon icon={carOutline} aria-hidden="true" />
+                      <Icon icon={carOutline} />
                       <span>{leg}</span>
                     </li>
                   ) : null}
@@ -258,7 +258,7 @@ function WeekView({
               </span>
               {day.conflicts ? (
                 <span className="pp-cal__day-warn">
-                  <IonIcon icon={warningOutline} aria-hidden="true" />
+                  <Icon icon={warningOutline} />
                   {day.conflicts === 1 ? '1 clash' : `${day.conflicts} clashes`}
                 </span>
               ) : null}
@@ -286,7 +286,7 @@ function WeekView({
                     </Link>
                     {s.conflicts.length ? (
                       <span className="pp-cal__day-warn">
-                        <IonIcon icon={warningOutline} aria-hidden="true" />
+                        <Icon icon={warningOutline} />
                         clash
                       </span>
                     ) : null}
@@ -360,7 +360,7 @@ export function CalendarScreen() {
           aria-label={view === 'day' ? 'Day before' : 'Week before'}
           onClick={() => setDayMs(addDays(dayMs, -step))}
         >
-          <IonIcon icon={chevronBack} aria-hidden="true" />
+          <Icon icon={chevronBack} />
         </button>
         <h2 className="pp-cal__title" aria-live="polite">
           {title}
@@ -371,7 +371,7 @@ export function CalendarScreen() {
           aria-label={view === 'day' ? 'Day after' : 'Week after'}
           onClick={() => setDayMs(addDays(dayMs, step))}
         >
-          <IonIcon icon={chevronForward} aria-hidden="true" />
+          <Icon icon={chevronForward} />
         </button>
       </div>
       {dayMs !== todayMs ? (

@@ -1,4 +1,3 @@
-import { IonIcon } from '@ionic/react';
 import { chevronForwardOutline, searchOutline } from 'ionicons/icons';
 import { useDeferredValue, useId, useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
@@ -9,6 +8,7 @@ import { searchClients, vehicleName, type ClientEntry } from '../model/clients';
 import { CustomerSheet } from './CustomerSheet';
 import '../../prep/kit/stageKit.css';
 import '../../shelf/shelf.css';
+import { Icon } from '../../../components/Icon';
 
 /**
  * Clients: every customer on this phone with their vehicles, found by name, phone, e-mail
@@ -46,7 +46,7 @@ export default function ClientsScreen() {
               Search clients
             </label>
             <div className="pp-field__control">
-              <IonIcon className="pp-office-search__icon" icon={searchOutline} aria-hidden="true" />
+              <Icon className="pp-office-search__icon" icon={searchOutline} />
               <input
                 id={searchId}
                 className="pp-field__input"
@@ -112,7 +112,7 @@ function ClientLink({ entry }: { entry: ClientEntry }) {
           {v.plate ? ` · ${v.plate}` : ''}
         </span>
       ))}
-      <IonIcon className="pp-office-row__go" icon={chevronForwardOutline} aria-hidden="true" />
+      <Icon className="pp-office-row__go" icon={chevronForwardOutline} />
     </Link>
   );
 }

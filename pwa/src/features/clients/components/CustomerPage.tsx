@@ -1,4 +1,3 @@
-import { IonIcon } from '@ionic/react';
 import { chevronForwardOutline } from 'ionicons/icons';
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
@@ -13,6 +12,7 @@ import { OfficePage } from './OfficePage';
 import { VehicleSheet } from './VehicleSheet';
 import '../../prep/kit/stageKit.css';
 import '../../shelf/shelf.css';
+import { Icon } from '../../../components/Icon';
 
 const visitWords = (n: number) => `${n} ${n === 1 ? 'visit' : 'visits'}`;
 
@@ -124,11 +124,7 @@ function CustomerDetail({
                       .filter(Boolean)
                       .join(' · ')}
                   </span>
-                  <IonIcon
-                    className="pp-office-row__go"
-                    icon={chevronForwardOutline}
-                    aria-hidden="true"
-                  />
+                  <Icon className="pp-office-row__go" icon={chevronForwardOutline} />
                 </Link>
               </li>
             ))}
@@ -166,11 +162,7 @@ function CustomerDetail({
                       {isJobStage(j.stage) ? STAGE_LABELS[j.stage] : j.stage}
                       {v ? ` · ${vehicleName(v)}` : ''}
                     </span>
-                    <IonIcon
-                      className="pp-office-row__go"
-                      icon={chevronForwardOutline}
-                      aria-hidden="true"
-                    />
+                    <Icon className="pp-office-row__go" icon={chevronForwardOutline} />
                   </Link>
                 </li>
               );

@@ -1,10 +1,10 @@
-import { IonIcon } from '@ionic/react';
 import { chevronForwardOutline, locationOutline } from 'ionicons/icons';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import type { JobSummary } from '../model/jobSummary';
 import { StageTag } from './StageTag';
 import './jobs.css';
+import { Icon } from '../../../components/Icon';
 
 /**
  * One visit as a card that opens its workspace: when, the stage (word and icon), the car,
@@ -33,12 +33,12 @@ export function JobCard({
       <span className="pp-job-card__customer">{summary.customerName}</span>
       {job.address ? (
         <span className="pp-job-card__address">
-          <IonIcon icon={locationOutline} aria-hidden="true" />
+          <Icon icon={locationOutline} />
           <span>{job.address}</span>
         </span>
       ) : null}
       {children}
-      <IonIcon className="pp-job-card__go" icon={chevronForwardOutline} aria-hidden="true" />
+      <Icon className="pp-job-card__go" icon={chevronForwardOutline} />
     </Link>
   );
 }

@@ -1,4 +1,3 @@
-import { IonIcon } from '@ionic/react';
 import { chevronBackOutline, chevronForwardOutline } from 'ionicons/icons';
 import { Link } from 'react-router-dom';
 import type {
@@ -22,6 +21,7 @@ import {
   workedTime,
   type Month,
 } from '../model/ledgerModel';
+import { Icon } from '../../../components/Icon';
 
 /** Prev / next and a month field: the Ledger shows one month at a time. */
 export function MonthPicker({
@@ -41,7 +41,7 @@ export function MonthPicker({
         aria-label={`Previous month, ${monthWords(before)}`}
         onClick={() => onChange(before)}
       >
-        <IonIcon icon={chevronBackOutline} aria-hidden="true" />
+        <Icon icon={chevronBackOutline} />
       </button>
       <label className="pp-ledger-month__field">
         <span className="pp-ledger-month__label">Month</span>
@@ -60,7 +60,7 @@ export function MonthPicker({
         aria-label={`Next month, ${monthWords(after)}`}
         onClick={() => onChange(after)}
       >
-        <IonIcon icon={chevronForwardOutline} aria-hidden="true" />
+        <Icon icon={chevronForwardOutline} />
       </button>
     </div>
   );
@@ -174,11 +174,7 @@ export function JobProfitList({ jobs, currency }: { jobs: LedgerJob[]; currency:
               In {money(j.revenueMinor, currency)} · materials {money(j.materialsMinor, currency)} ·
               labour {money(j.labourMinor, currency)} ({workedTime(j.labourMinutes)})
             </span>
-            <IonIcon
-              className="pp-ledger-job__go"
-              icon={chevronForwardOutline}
-              aria-hidden="true"
-            />
+            <Icon className="pp-ledger-job__go" icon={chevronForwardOutline} />
           </Link>
         </li>
       ))}

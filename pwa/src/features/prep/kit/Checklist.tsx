@@ -1,7 +1,7 @@
-import { IonIcon } from '@ionic/react';
 import { checkmarkCircle, ellipseOutline } from 'ionicons/icons';
 import { useJobRows } from '../../../db/hooks';
 import { useChanges } from '../../../sync/useChanges';
+import { Icon } from '../../../components/Icon';
 
 /**
  * A stage's checklist of the job: one big row per step, ticked with one tap (and untickable
@@ -44,11 +44,7 @@ export function Checklist({
               className={`pp-check${item.done ? ' pp-check--done' : ''}`}
               onClick={() => void changes.toggleCheck({ id: item.id, done: !item.done })}
             >
-              <IonIcon
-                className="pp-check__box"
-                icon={item.done ? checkmarkCircle : ellipseOutline}
-                aria-hidden="true"
-              />
+              <Icon className="pp-check__box" icon={item.done ? checkmarkCircle : ellipseOutline} />
               <span className="pp-check__text">
                 <span className="pp-check__label">{item.label}</span>
                 {item.done ? (

@@ -1,4 +1,3 @@
-import { IonIcon } from '@ionic/react';
 import {
   alertCircle,
   checkmarkCircle,
@@ -7,6 +6,7 @@ import {
   informationCircleOutline,
   removeCircleOutline,
 } from 'ionicons/icons';
+import { Icon } from '../../../components/Icon';
 
 /** The tones of a state: never colour alone, each has its own icon shape and a word. */
 export type Tone = 'go' | 'wait' | 'stop' | 'done' | 'quiet' | 'info';
@@ -24,7 +24,7 @@ export const toneIcon: Record<Tone, string> = {
 export function StateTag({ tone, words, icon }: { tone: Tone; words: string; icon?: string }) {
   return (
     <span className={`pp-tag pp-tag--${tone}`}>
-      <IonIcon icon={icon ?? toneIcon[tone]} aria-hidden="true" />
+      <Icon icon={icon ?? toneIcon[tone]} />
       <span>{words}</span>
     </span>
   );

@@ -1,8 +1,8 @@
-import { IonIcon } from '@ionic/react';
 import { addOutline, calendarOutline, documentTextOutline } from 'ionicons/icons';
 import { Link } from 'react-router-dom';
 import { useCurrentUser } from '../../auth/hooks/useCurrentUser';
 import '../quotes.css';
+import { Icon } from '../../../components/Icon';
 
 /** Above the jobs list: New quote and the quotes (the owner's), and the calendar (everyone's). */
 export function JobsTabLinks() {
@@ -12,18 +12,18 @@ export function JobsTabLinks() {
     <nav className="pp-quotes__top" aria-label="Quotes and calendar">
       {owner ? (
         <Link className="pp-button" to="/jobs/quotes/new">
-          <IonIcon icon={addOutline} aria-hidden="true" />
+          <Icon icon={addOutline} />
           <span>New quote</span>
         </Link>
       ) : null}
       {owner ? (
         <Link className="pp-link" to="/jobs/quotes">
-          <IonIcon icon={documentTextOutline} aria-hidden="true" />
+          <Icon icon={documentTextOutline} />
           <span>Quotes</span>
         </Link>
       ) : null}
       <Link className="pp-link" to="/jobs/calendar">
-        <IonIcon icon={calendarOutline} aria-hidden="true" />
+        <Icon icon={calendarOutline} />
         <span>{owner ? 'Calendar' : 'My calendar'}</span>
       </Link>
     </nav>

@@ -1,4 +1,3 @@
-import { IonIcon } from '@ionic/react';
 import {
   checkmarkCircleOutline,
   closeCircleOutline,
@@ -6,6 +5,7 @@ import {
   paperPlaneOutline,
 } from 'ionicons/icons';
 import { STATUS_WORDS, type QuoteStatus } from '../model/quoteStatus';
+import { Icon } from '../../../components/Icon';
 
 const ICONS: Record<QuoteStatus, string> = {
   draft: createOutline,
@@ -18,7 +18,7 @@ const ICONS: Record<QuoteStatus, string> = {
 export function QuoteStatusTag({ status }: { status: QuoteStatus }) {
   return (
     <span className={`pp-quote-tag pp-quote-tag--${status}`}>
-      <IonIcon icon={ICONS[status]} aria-hidden="true" />
+      <Icon icon={ICONS[status]} />
       <span>
         <span className="pp-quotes-hidden">Status: </span>
         {STATUS_WORDS[status].short}

@@ -1,4 +1,3 @@
-import { IonIcon } from '@ionic/react';
 import { addOutline, calendarOutline } from 'ionicons/icons';
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
@@ -16,6 +15,7 @@ import {
   type QuoteStatus,
 } from '../model/quoteStatus';
 import { QuoteStatusTag } from './QuoteStatusTag';
+import { Icon } from '../../../components/Icon';
 
 type Filter = 'all' | QuoteStatus;
 
@@ -60,11 +60,11 @@ export function QuotesList() {
     <div className="pp-quotes">
       <div className="pp-quotes__top">
         <Link className="pp-button" to="/jobs/quotes/new">
-          <IonIcon icon={addOutline} aria-hidden="true" />
+          <Icon icon={addOutline} />
           <span>New quote</span>
         </Link>
         <Link className="pp-link" to="/jobs/calendar">
-          <IonIcon icon={calendarOutline} aria-hidden="true" />
+          <Icon icon={calendarOutline} />
           <span>Calendar</span>
         </Link>
       </div>

@@ -1,9 +1,9 @@
-import { IonIcon } from '@ionic/react';
 import { chevronForwardOutline } from 'ionicons/icons';
 import { Link } from 'react-router-dom';
 import type { ProductRow } from '@panelpass/shared';
 import { StateTag } from '../../prep/kit/StateTag';
 import { isLow, kindWords, lowWords, stockWords } from '../model/shelf';
+import { Icon } from '../../../components/Icon';
 
 /** One product as a row that opens its page: name, kind, stock left, and low in words. */
 export function ProductLink({ product }: { product: ProductRow }) {
@@ -23,7 +23,7 @@ export function ProductLink({ product }: { product: ProductRow }) {
         {stockWords(product)}
         {low && !out ? ` · ${lowWords(product)?.replace(/^Low: /, '') ?? ''}` : ''}
       </span>
-      <IonIcon className="pp-office-row__go" icon={chevronForwardOutline} aria-hidden="true" />
+      <Icon className="pp-office-row__go" icon={chevronForwardOutline} />
     </Link>
   );
 }

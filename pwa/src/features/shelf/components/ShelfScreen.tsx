@@ -1,4 +1,3 @@
-import { IonIcon } from '@ionic/react';
 import { searchOutline } from 'ionicons/icons';
 import { useDeferredValue, useId, useMemo, useState } from 'react';
 import { EmptyState } from '../../../components/EmptyState';
@@ -10,6 +9,7 @@ import { ProductLink } from './ProductLink';
 import { ProductSheet } from './ProductSheet';
 import '../../prep/kit/stageKit.css';
 import '../shelf.css';
+import { Icon } from '../../../components/Icon';
 
 /**
  * The Shelf: products and tools with what is left of each — the low-stock list first, then
@@ -48,7 +48,7 @@ export default function ShelfScreen() {
               Search the Shelf
             </label>
             <div className="pp-field__control">
-              <IonIcon className="pp-office-search__icon" icon={searchOutline} aria-hidden="true" />
+              <Icon className="pp-office-search__icon" icon={searchOutline} />
               <input
                 id={searchId}
                 className="pp-field__input"

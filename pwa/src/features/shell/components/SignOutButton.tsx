@@ -1,7 +1,8 @@
-import { IonButton, IonIcon, useIonAlert } from '@ionic/react';
+import { IonButton, useIonAlert } from '@ionic/react';
 import { logOutOutline } from 'ionicons/icons';
 import { useSignOut } from '../../auth/hooks/useSignOut';
 import { useSync } from '../../../sync/context';
+import { Icon } from '../../../components/Icon';
 
 /** "3 changes", "1 photo or signature" — what would be lost. */
 function unsentWords(pending: number, images: number): string {
@@ -75,7 +76,7 @@ export function SignOutButton() {
       title="Sign out"
       onClick={confirm}
     >
-      <IonIcon slot="icon-only" icon={logOutOutline} aria-hidden="true" />
+      <Icon slot="icon-only" icon={logOutOutline} />
     </IonButton>
   );
 }

@@ -1,9 +1,9 @@
-import { IonIcon } from '@ionic/react';
 import { alertCircleOutline, checkmarkCircleOutline, cloudUploadOutline } from 'ionicons/icons';
 import { useState } from 'react';
 import { lazySheet } from '../../../app/lazySheet';
 import type { SyncStatusView } from '../../../sync/context';
 import { useSyncStatus } from '../../../sync/useSyncStatus';
+import { Icon } from '../../../components/Icon';
 
 /** The details behind the badge, opened by a tap: loaded then, not with every tab. */
 const SyncSheet = lazySheet(() =>
@@ -56,7 +56,7 @@ export function SyncBadge() {
           aria-haspopup="dialog"
           onClick={() => setOpen(true)}
         >
-          <IonIcon icon={icon} aria-hidden="true" />
+          <Icon icon={icon} />
           <span>{words}</span>
         </button>
       </span>

@@ -1,8 +1,9 @@
-import { IonButton, IonContent, IonHeader, IonIcon, IonPage, IonToolbar } from '@ionic/react';
+import { IonButton, IonContent, IonHeader, IonPage, IonToolbar } from '@ionic/react';
 import { settingsOutline } from 'ionicons/icons';
 import type { ReactNode } from 'react';
 import { SignOutButton } from './SignOutButton';
 import { SyncBadge } from './SyncBadge';
+import { Icon } from '../../../components/Icon';
 
 /**
  * One tab's page: its title, the sync badge, Settings and sign-out (icons with their names as
@@ -26,7 +27,7 @@ export function TabPage({ title, children }: { title: string; children: ReactNod
                 aria-label="Settings"
                 title="Settings"
               >
-                <IonIcon slot="icon-only" icon={settingsOutline} aria-hidden="true" />
+                <Icon slot="icon-only" icon={settingsOutline} />
               </IonButton>
               <SignOutButton />
             </div>

@@ -1,4 +1,3 @@
-import { IonIcon } from '@ionic/react';
 import { checkmarkOutline } from 'ionicons/icons';
 import { useState } from 'react';
 import type { TimerRow } from '@panelpass/shared';
@@ -6,6 +5,7 @@ import { useChanges } from '../../../sync/useChanges';
 import { KIND_WORDS, kindOf, remainingText } from '../model/timerWords';
 import { KIND_ICONS, stateLook } from './kindLook';
 import { clockTime } from '../../prep/kit/clockTime';
+import { Icon } from '../../../components/Icon';
 
 function clock(iso: string): string {
   return clockTime(Date.parse(iso));
@@ -50,11 +50,11 @@ export function AlarmBanners({
           onClick={onShowAll}
         >
           <span className="pp-alarm__head">
-            <IonIcon icon={look.icon} aria-hidden="true" />
+            <Icon icon={look.icon} />
             <span>{look.word}</span>
           </span>
           <span className="pp-alarm__label">
-            <IonIcon icon={KIND_ICONS[kind]} aria-hidden="true" />
+            <Icon icon={KIND_ICONS[kind]} />
             {/* "Flush: Flush the sap remover…" says it twice: the kind word only when new. */}
             <span>
               {label.toLowerCase().startsWith(KIND_WORDS[kind].toLowerCase())
@@ -79,7 +79,7 @@ export function AlarmBanners({
               void changes.ackTimer({ id: t.id }).finally(() => setBusy(null));
             }}
           >
-            <IonIcon icon={checkmarkOutline} aria-hidden="true" />
+            <Icon icon={checkmarkOutline} />
             Acknowledge
           </button>
           {more > 0 ? (

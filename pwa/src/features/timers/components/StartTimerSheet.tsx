@@ -1,4 +1,4 @@
-import { IonButton, IonContent, IonHeader, IonIcon, IonModal, IonToolbar } from '@ionic/react';
+import { IonButton, IonContent, IonHeader, IonModal, IonToolbar } from '@ionic/react';
 import { useMemo, useState, type FormEvent } from 'react';
 import { Notice } from '../../../components/Notice';
 import { TextField } from '../../../components/TextField';
@@ -12,6 +12,7 @@ import { useServerNow } from '../hooks/useServerClock';
 import { KIND_WORDS, type TimerKind } from '../model/timerWords';
 import { KIND_ICONS } from './kindLook';
 import './timers.css';
+import { Icon } from '../../../components/Icon';
 
 /** Kinds a person starts by hand (a flush timer starts with its solvent, on Prep). */
 const STARTABLE: readonly TimerKind[] = ['dwell', 'cure', 'keep-dry', 'custom'];
@@ -142,7 +143,7 @@ export function StartTimerSheet({
                     checked={kind === k}
                     onChange={() => pickKind(k)}
                   />
-                  <IonIcon icon={KIND_ICONS[k]} aria-hidden="true" />
+                  <Icon icon={KIND_ICONS[k]} />
                   <span>{KIND_WORDS[k]}</span>
                 </label>
               ))}

@@ -1,4 +1,3 @@
-import { IonIcon } from '@ionic/react';
 import { pauseOutline, playOutline, checkmarkOutline, closeOutline } from 'ionicons/icons';
 import { useEffect, useState } from 'react';
 import { Link } from 'react-router-dom';
@@ -13,6 +12,7 @@ import {
 } from '../model/timerWords';
 import { KIND_ICONS, stateLook } from './kindLook';
 import { clockTime } from '../../prep/kit/clockTime';
+import { Icon } from '../../../components/Icon';
 
 export interface TimerCardProps {
   timer: TimerRow;
@@ -61,11 +61,11 @@ export function TimerCard({ timer, nowMs, missed, jobWords, onOpenJob }: TimerCa
     <article className={`pp-timer pp-timer--${look.tone}`} aria-labelledby={titleId}>
       <header className="pp-timer__head">
         <span className="pp-timer__kind">
-          <IonIcon icon={KIND_ICONS[kind]} aria-hidden="true" />
+          <Icon icon={KIND_ICONS[kind]} />
           {KIND_WORDS[kind]}
         </span>
         <span className={`pp-timer__state pp-tone--${look.tone}`}>
-          <IonIcon icon={look.icon} aria-hidden="true" />
+          <Icon icon={look.icon} />
           {look.word}
         </span>
       </header>
@@ -94,7 +94,7 @@ export function TimerCard({ timer, nowMs, missed, jobWords, onOpenJob }: TimerCa
             disabled={busy}
             onClick={() => void run(() => changes.ackTimer({ id: timer.id }))}
           >
-            <IonIcon icon={checkmarkOutline} aria-hidden="true" />
+            <Icon icon={checkmarkOutline} />
             Acknowledge
           </button>
         ) : (
@@ -106,7 +106,7 @@ export function TimerCard({ timer, nowMs, missed, jobWords, onOpenJob }: TimerCa
                 disabled={busy}
                 onClick={() => void run(() => changes.resumeTimer({ id: timer.id }))}
               >
-                <IonIcon icon={playOutline} aria-hidden="true" />
+                <Icon icon={playOutline} />
                 Resume
               </button>
             ) : (
@@ -116,7 +116,7 @@ export function TimerCard({ timer, nowMs, missed, jobWords, onOpenJob }: TimerCa
                 disabled={busy}
                 onClick={() => void run(() => changes.pauseTimer({ id: timer.id }))}
               >
-                <IonIcon icon={pauseOutline} aria-hidden="true" />
+                <Icon icon={pauseOutline} />
                 Pause
               </button>
             )}
@@ -130,7 +130,7 @@ export function TimerCard({ timer, nowMs, missed, jobWords, onOpenJob }: TimerCa
                 else void run(() => changes.cancelTimer({ id: timer.id }));
               }}
             >
-              <IonIcon icon={closeOutline} aria-hidden="true" />
+              <Icon icon={closeOutline} />
               {confirmStop ? 'Tap again to stop' : 'Stop'}
             </button>
           </>

@@ -1,4 +1,4 @@
-import { IonButton, IonContent, IonHeader, IonIcon, IonModal, IonToolbar } from '@ionic/react';
+import { IonButton, IonContent, IonHeader, IonModal, IonToolbar } from '@ionic/react';
 import { addOutline, notificationsOutline, phonePortraitOutline } from 'ionicons/icons';
 import { useEffect, useState } from 'react';
 import type { TimerRow } from '@panelpass/shared';
@@ -10,6 +10,7 @@ import { askNotifyPermission, notifyPermission, type NotifyPermission } from '..
 import { TimerCard } from './TimerCard';
 import { StartTimerSheet } from './StartTimerSheet';
 import './timers.css';
+import { Icon } from '../../../components/Icon';
 
 export interface TimerSheetProps {
   isOpen: boolean;
@@ -75,7 +76,7 @@ export function TimerSheet({
           <AlarmSettings wakeLockHeld={wakeLockHeld} />
           <div className="pp-actions">
             <button type="button" className="pp-button" onClick={() => setStarting(true)}>
-              <IonIcon icon={addOutline} aria-hidden="true" />
+              <Icon icon={addOutline} />
               Start a timer
             </button>
           </div>
@@ -154,14 +155,14 @@ export function AlarmSettings({ wakeLockHeld }: { wakeLockHeld: boolean }) {
           className="pp-button pp-button--outline-go"
           onClick={() => void askNotifyPermission().then(setPermission)}
         >
-          <IonIcon icon={notificationsOutline} aria-hidden="true" />
+          <Icon icon={notificationsOutline} />
           Notify me when the app is in the background
         </button>
       )}
       {wakeLockSupported() ? (
         <label className="pp-timer-toggle">
           <input type="checkbox" checked={keepOn} onChange={(e) => setKeepOn(e.target.checked)} />
-          <IonIcon icon={phonePortraitOutline} aria-hidden="true" />
+          <Icon icon={phonePortraitOutline} />
           <span>
             Keep the screen on while a timer runs
             {keepOn ? (

@@ -1,4 +1,3 @@
-import { IonIcon } from '@ionic/react';
 import type { TimerRow } from '@panelpass/shared';
 import {
   KIND_WORDS,
@@ -8,6 +7,7 @@ import {
   timerState,
 } from '../model/timerWords';
 import { KIND_ICONS } from './kindLook';
+import { Icon } from '../../../components/Icon';
 
 /**
  * The strip above the tab bar while a timer runs: the nearest one's kind (word and icon),
@@ -34,7 +34,7 @@ export function TimerStrip({
       onClick={onOpen}
     >
       <span className="pp-strip__kind">
-        <IonIcon icon={KIND_ICONS[kind]} aria-hidden="true" />
+        <Icon icon={KIND_ICONS[kind]} />
         <span>{paused ? `${KIND_WORDS[kind]} · paused` : KIND_WORDS[kind]}</span>
       </span>
       <span className="pp-strip__label">{nearest.label || KIND_WORDS[kind]}</span>

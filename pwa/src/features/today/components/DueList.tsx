@@ -1,4 +1,3 @@
-import { IonIcon } from '@ionic/react';
 import {
   alertCircleOutline,
   brushOutline,
@@ -9,6 +8,7 @@ import {
 } from 'ionicons/icons';
 import { Link } from 'react-router-dom';
 import type { DueItem } from '../model/dueItems';
+import { Icon } from '../../../components/Icon';
 
 const KIND_ICON: Record<DueItem['kind'], string> = {
   flush: waterOutline,
@@ -41,11 +41,11 @@ export function DueList({
           <li key={item.key}>
             <Link className={`pp-due__item pp-due__item--${item.state}`} to={`/jobs/${item.jobId}`}>
               <span className="pp-due__state">
-                <IonIcon icon={look.icon} aria-hidden="true" />
+                <Icon icon={look.icon} />
                 {look.word}
               </span>
               <span className="pp-due__title">
-                <IonIcon icon={KIND_ICON[item.kind]} aria-hidden="true" />
+                <Icon icon={KIND_ICON[item.kind]} />
                 <span>{item.title}</span>
               </span>
               <span className="pp-due__detail">{item.detail}</span>

@@ -1,4 +1,3 @@
-import { IonIcon } from '@ionic/react';
 import { addOutline } from 'ionicons/icons';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
@@ -15,6 +14,7 @@ import {
   remainingText,
   timerState,
 } from '../../timers/model/timerWords';
+import { Icon } from '../../../components/Icon';
 
 /** Opened by a tap: its form (and the climate and job-picking code) loads then. */
 const StartTimerSheet = lazySheet(() =>
@@ -52,10 +52,10 @@ export function TimersNow({
             const body = (
               <>
                 <span className="pp-today-timer__kind">
-                  <IonIcon icon={KIND_ICONS[kind]} aria-hidden="true" />
+                  <Icon icon={KIND_ICONS[kind]} />
                   {KIND_WORDS[kind]}
                   <span className={`pp-today-timer__state pp-tone--${look.tone}`}>
-                    <IonIcon icon={look.icon} aria-hidden="true" />
+                    <Icon icon={look.icon} />
                     {look.word}
                   </span>
                 </span>
@@ -94,7 +94,7 @@ export function TimersNow({
         className="pp-button pp-button--outline-go"
         onClick={() => setStarting(true)}
       >
-        <IonIcon icon={addOutline} aria-hidden="true" />
+        <Icon icon={addOutline} />
         Start a timer
       </button>
       <StartTimerSheet isOpen={starting} onClose={() => setStarting(false)} />

@@ -1,4 +1,3 @@
-import { IonIcon } from '@ionic/react';
 import { carOutline, warningOutline } from 'ionicons/icons';
 import { Fragment } from 'react';
 import { EmptyState } from '../../../components/EmptyState';
@@ -6,6 +5,7 @@ import { JobCard } from '../../jobs/components/JobCard';
 import type { JobSummary } from '../../jobs/model/jobSummary';
 import type { DriveSettings } from '@panelpass/shared';
 import { dayLegs } from '../model/dayPlan';
+import { Icon } from '../../../components/Icon';
 
 /** One formatter for every visit's times, made once (it is costly to make). */
 let timeFormat: Intl.DateTimeFormat | null = null;
@@ -50,12 +50,12 @@ export function TodayVisits({
                 <Fragment key={v.job.id}>
                   {leg && leg.kind !== 'first' ? (
                     <li className="pp-leg" aria-label="Drive">
-                      <IonIcon icon={carOutline} aria-hidden="true" />
+                      <Icon icon={carOutline} />
                       <span>
                         {leg.words}
                         {leg.kind === 'drive' && leg.tight ? (
                           <span className="pp-leg__tight">
-                            <IonIcon icon={warningOutline} aria-hidden="true" />
+                            <Icon icon={warningOutline} />
                             {leg.tight}
                           </span>
                         ) : null}
