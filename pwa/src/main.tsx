@@ -9,7 +9,32 @@ import './theme/fonts.css';
 import './theme/variables.css';
 import './theme/app.css';
 import { afterFirstPaint } from './app/afterFirstPaint';
+import { warmLocalDb } from './db/warmLocalDb';
+import { createSessionStore } from './features/auth/model/sessionStore';
+import { redirectFor } from './features/shell/model/access';
 
-// The splash paints first, on its own; then the app's code is fetched and run. On a slow line
-// that first paint no longer shares the line, or the main thread, with the app's code.
-afterFirstPaint(() => void import('./boot'));
+// Settle the first screen before anything loads: a signed-out visitor goes straight to sign-in
+// without loading the tab shell, a signed-in one skips the sign-in screen.
+const user = createSessionStore(window.localStorage).get()?.user ?? null;
+const role = user?.role ?? null;
+const target = redirectFor(window.location.pathname, role);
+if (target !== null) window.history.replaceState(null, '', target);
+
+function startApp() {
+  void import('./boot');
+  // A signed-in start opens on Today, read from the phone's database: have the browser read it
+  // from disk (cold, that takes a few hundred ms) and fetch the tab shell and Today's screen
+  // beside the app's code, not one after the other as they render (the lazy pages then find
+  // them loaded).
+  if (user !== null && role !== 'customer' && window.location.pathname === '/today') {
+    void warmLocalDb(user.id).catch(() => undefined);
+    void import('./app/MainTabs');
+    void import('./pages/TodayPage');
+  }
+}
+
+// The installed app (a service worker in control) has its code on the phone, with no line to
+// share: start at once. A first visit paints the splash first, on its own; then the app's code
+// is fetched and run, so on a slow line that first paint does not wait behind it.
+if (navigator.serviceWorker?.controller) startApp();
+else afterFirstPaint(startApp);

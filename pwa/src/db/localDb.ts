@@ -8,6 +8,7 @@ import {
   type SyncTable,
 } from '@panelpass/shared';
 import { SCHEMA_VERSIONS, type SchemaVersion } from './schema';
+import { localDbName } from './localDbName';
 
 /** A recorded mutation waiting for the server; `at` is when it was made, on the server's clock. */
 export interface OutboxEntry extends Mutation {
@@ -99,9 +100,7 @@ export interface LocalDbOptions {
   upToVersion?: number;
 }
 
-export function localDbName(userId: string): string {
-  return `panelpass-${userId}`;
-}
+export { localDbName };
 
 /** Declares the versions on a Dexie instance, in order. */
 export function declareSchema(db: Dexie, versions: readonly SchemaVersion[]): void {
