@@ -14,8 +14,12 @@
 // signatures, then Ionic's unused ios style sheets, then Vite's preload helper and the second
 // component runtime that `<ion-icon>` brought (icons are inline SVG now, src/components/Icon.tsx);
 // raised once by 1 kB for the cached clock-time formatter, a module of its own that saves a
-// formatter per render): it stops the bundle from growing while the rest of the way to 200 kB
-// is worked on. Lower it with every step down; never raise it without saying why in the commit.
+// formatter per render, and once by 8 kB (≈240.3 kB) for starting in three parts, each run in a
+// task of its own (React's DOM renderer, Ionic, the app; src/boot.tsx): separate chunks compress
+// a little worse, and it halved the main thread's blocking time at startup (Lighthouse TBT on
+// Today 898 -> 545 ms, sign-in 298 -> 143 ms)): it stops the bundle from growing while the rest
+// of the way to 200 kB is worked on. Lower it with every step down; never raise it without
+// saying why in the commit.
 import { join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { firstScreenFiles, firstScreensGoalKb, pwaDist } from './pwa/scripts/first-screens.mjs';
@@ -28,6 +32,6 @@ export default [
     name: `sign-in + Today JavaScript, gzipped (goal ${firstScreensGoalKb} kB)`,
     path: firstScreenFiles(dist).map((file) => relative(root, join(dist, file))),
     gzip: true,
-    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '233 kB',
+    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '241 kB',
   },
 ];

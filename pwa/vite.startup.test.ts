@@ -28,8 +28,8 @@ describe('dropIosStyles (the build keeps only the md look of Ionic)', () => {
     expect(dropIosStyles('const a = 1;')).toEqual({ code: 'const a = 1;', removed: 0 });
   });
 
-  it('goes with the app pinning the md look (src/boot.tsx)', () => {
-    const main = readFileSync(new URL('./src/boot.tsx', import.meta.url), 'utf8');
+  it('goes with the app pinning the md look (src/app/startIonic.ts)', () => {
+    const main = readFileSync(new URL('./src/app/startIonic.ts', import.meta.url), 'utf8');
     expect(main).toMatch(/setupIonicReact\(\{[^}]*mode: 'md'/);
   });
 });

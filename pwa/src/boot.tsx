@@ -1,14 +1,20 @@
 // The app itself, loaded by main.tsx (which has already settled the first screen's address).
-import { setupIonicReact } from '@ionic/react';
+// Its three big parts are run one task each, with a breath between, so that a phone's main
+// thread is never held for long while starting: React's DOM renderer, Ionic, then the app.
 import { StrictMode, startTransition } from 'react';
-import { createRoot } from 'react-dom/client';
-import { App } from './App';
 
-const reducedMotion = window.matchMedia('(prefers-reduced-motion: reduce)').matches;
+/** Lets the browser handle input and paint before the next part runs. */
+const breathe = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
 
-// One look on every phone (Material mode; the build drops Ionic's other look's styles, see
-// vite.startup.ts), no ripples, no page slides when motion is reduced.
-setupIonicReact({ mode: 'md', rippleEffect: false, animated: !reducedMotion });
+const { createRoot } = await import('react-dom/client');
+await breathe();
+const { startIonic } = await import('./app/startIonic');
+await breathe();
+startIonic();
+await breathe();
+
+const { App } = await import('./App');
+await breathe();
 
 const root = document.getElementById('root');
 if (!root) throw new Error('index.html has no #root element');

@@ -8,7 +8,7 @@ function open(idb: IDBFactory, name: string, version?: number): Promise<IDBDatab
     const request = version === undefined ? idb.open(name) : idb.open(name, version);
     request.onupgradeneeded = () => request.result.createObjectStore(`store-${version ?? 1}`);
     request.onsuccess = () => resolve(request.result);
-    request.onerror = () => reject(request.error);
+    request.onerror = () => reject(request.error ?? new Error('open failed'));
     request.onblocked = () => reject(new Error('blocked'));
   });
 }
