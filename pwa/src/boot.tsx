@@ -1,19 +1,24 @@
 // The app itself, loaded by main.tsx (which has already settled the first screen's address).
-// Its three big parts are run one task each, with a breath between, so that a phone's main
-// thread is never held for long while starting: React's DOM renderer, Ionic, then the app.
+// Its three big parts, React's DOM renderer, Ionic and the app, are fetched side by side and
+// each run in a task of its own, with a breath between, so that a phone's main thread is never
+// held for long while starting.
 import { StrictMode, startTransition } from 'react';
 
 /** Lets the browser handle input and paint before the next part runs. */
 const breathe = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
 
-const { createRoot } = await import('react-dom/client');
+const renderer = import('react-dom/client');
+const ionic = import('./app/startIonic');
+const app = import('./App');
+
+const { createRoot } = await renderer;
 await breathe();
-const { startIonic } = await import('./app/startIonic');
+const { startIonic } = await ionic;
 await breathe();
 startIonic();
 await breathe();
 
-const { App } = await import('./App');
+const { App } = await app;
 await breathe();
 
 const root = document.getElementById('root');
