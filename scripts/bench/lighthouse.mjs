@@ -9,7 +9,7 @@
 //    output says whether each run was such a warm start (assets from the service worker, the
 //    pull from a cursor above 0).
 //
-// Each page is audited RUNS times (default 3); the median of each figure is printed.
+// Each page is audited RUNS times (default 5); the median of each figure is printed.
 // PANELPASS_LIGHTHOUSE_REPORTS=<folder> keeps each run's full report (<page>-<run>.json) there;
 // PANELPASS_LIGHTHOUSE_PAGES=Today audits only the pages named (comma-separated).
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
@@ -20,7 +20,7 @@ import { chromium } from 'playwright-core';
 
 const baseUrl = process.env.BENCH_URL;
 if (!baseUrl) throw new Error('BENCH_URL is not set (run scripts/bench/lighthouse)');
-const runs = Number(process.env.RUNS ?? 3);
+const runs = Number(process.env.RUNS ?? 5);
 const reportDir = process.env.PANELPASS_LIGHTHOUSE_REPORTS;
 if (reportDir) mkdirSync(reportDir, { recursive: true });
 const onlyPages = process.env.PANELPASS_LIGHTHOUSE_PAGES?.split(',').map((p) => p.trim());
