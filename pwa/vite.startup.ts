@@ -1,5 +1,5 @@
-// Two build-time plugins that keep code the first screens never show out of the startup chunks.
-// Both work around one-module "barrels": a bundler places a whole module in one chunk, so
+// Build-time plugins that keep code the first screens never show out of the startup chunks.
+// Most work around one-module "barrels": a bundler places a whole module in one chunk, so
 // everything a barrel keeps for any screen ends up wherever the barrel is loaded first.
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
