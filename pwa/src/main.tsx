@@ -9,6 +9,7 @@ import './theme/fonts.css';
 import './theme/variables.css';
 import './theme/app.css';
 import { afterFirstPaint } from './app/afterFirstPaint';
+import { warmIntl } from './app/warmIntl';
 import { warmLocalDb } from './db/warmLocalDb';
 import { createSessionStore } from './features/auth/model/sessionStore';
 import { redirectFor } from './features/shell/model/access';
@@ -25,9 +26,15 @@ function startApp() {
   // A signed-in start opens on Today, read from the phone's database: have the browser read it
   // from disk (cold, that takes a few hundred ms) and fetch the tab shell and Today's screen
   // beside the app's code, not one after the other as they render (the lazy pages then find
-  // them loaded).
+  // them loaded). While that code arrives the main thread would wait: it loads the locale's
+  // data for formatting (app/warmIntl.ts) and builds the database object (db/preparedLocalDb.ts)
+  // then, in short tasks of their own, instead of inside the first screen's render.
   if (user !== null && role !== 'customer' && window.location.pathname === '/today') {
+    const owner = { userId: user.id, businessId: user.businessId, role: user.role };
     void warmLocalDb(user.id).catch(() => undefined);
+    warmIntl();
+    // The module's first run (Dexie's) and the object's build, each in a task of its own.
+    void import('./db/preparedLocalDb').then((m) => setTimeout(() => m.prepareLocalDb(owner)));
     void import('./app/MainTabs');
     void import('./pages/TodayPage');
   }

@@ -11,9 +11,16 @@ function page(html: string) {
 }
 
 describe('hideSplash', () => {
-  it('removes the splash at once when a page is showing', () => {
+  it('removes the splash on the next frame when a page is showing', () => {
+    const frames: FrameRequestCallback[] = [];
+    vi.spyOn(window, 'requestAnimationFrame').mockImplementation((callback) =>
+      frames.push(callback),
+    );
     page('<div class="ion-page"></div>');
     hideSplash(document);
+    // Not in the task that mounts the first screen: that one is long enough.
+    expect(document.getElementById('pp-splash')).not.toBeNull();
+    frames.shift()?.(0);
     expect(document.getElementById('pp-splash')).toBeNull();
   });
 
@@ -24,6 +31,7 @@ describe('hideSplash', () => {
     );
     page('<div class="ion-page ion-page-invisible"></div>');
     hideSplash(document);
+    frames.shift()?.(0);
     frames.shift()?.(0);
     expect(document.getElementById('pp-splash')).not.toBeNull();
     document.querySelector('.ion-page')?.classList.remove('ion-page-invisible');
@@ -38,6 +46,7 @@ describe('hideSplash', () => {
     );
     page('<div class="ion-page ion-page-invisible"></div>');
     hideSplash(document, 3);
+    frames.shift()?.(0);
     frames.shift()?.(0);
     expect(document.getElementById('pp-splash')).not.toBeNull();
     frames.shift()?.(0);

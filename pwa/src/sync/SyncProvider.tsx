@@ -3,7 +3,8 @@ import type { CommandName } from '@panelpass/shared';
 import { whenIdle } from '../app/lazySheet';
 import { apiClient, sessionStore } from '../app/services';
 import { useSession } from '../features/auth/hooks/useSession';
-import { LocalDb, type DbOwner } from '../db/localDb';
+import type { LocalDb, DbOwner } from '../db/localDb';
+import { takeLocalDb } from '../db/preparedLocalDb';
 import { SyncActionsContext, SyncContext, type SyncActions } from './context';
 import type { SyncEngine } from './engine';
 import { useLiveSyncStatus } from './useLiveSyncStatus';
@@ -79,7 +80,7 @@ export function SyncProvider({ children }: { children: ReactNode }) {
 
   useEffect(() => {
     if (!userId || !businessId || !role) return;
-    const db = new LocalDb({ userId, businessId, role });
+    const db = takeLocalDb({ userId, businessId, role });
     let ended = false;
     let engine: SyncEngine | null = null;
     let cancelIdle = () => undefined as void;

@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useDeferredValue, useMemo, useState } from 'react';
 import { lazySheet } from '../../../app/lazySheet';
 import { useSession } from '../../auth/hooks/useSession';
 import { useUnits } from '../../settings/useUnits';
@@ -56,15 +56,16 @@ export function TodayScreen() {
     return (jobId: string) => byId.get(jobId);
   }, [jobs]);
 
-  const date = dayWords().format(now);
-  const count = visits.length;
-
   // The three lists come from the phone's database one after the other; the screen waits for
   // all of them and appears whole, so nothing the detailer is about to tap jumps down as the
   // next list arrives. Until then a blank block as tall as the screen holds the space.
   // On a new phone the lists would show empty, then fill with the first sync: it waits for that
   // too (online, a few seconds at most), saying so.
-  if (firstSync || due === undefined || jobs === undefined || timers === undefined) {
+  const ready = !firstSync && due !== undefined && jobs !== undefined && timers !== undefined;
+  // The screen's first whole render is the biggest of the start. Deferred, React renders it in
+  // slices between which the phone can answer a tap, instead of in one long task.
+  const shown = useDeferredValue(ready);
+  if (!ready || !shown) {
     return (
       <div className="pp-today pp-today--reading" aria-busy="true">
         {firstSync ? (
@@ -75,6 +76,9 @@ export function TodayScreen() {
       </div>
     );
   }
+
+  const date = dayWords().format(now);
+  const count = visits.length;
 
   return (
     <div className="pp-today">
