@@ -24,6 +24,12 @@ export interface CommandDef<A extends object = object, R = unknown> {
    * kept under a business that no longer exists would be a row of it left behind.
    */
   audited?: boolean;
+  /**
+   * True for a command that calls a service outside the database (the card provider): what
+   * it did there is not undone when its transaction rolls back. The sync push never runs such
+   * a command in a chunk it may roll back and run again (see `SyncService.push`).
+   */
+  reachesOutside?: boolean;
   run(ctx: CommandContext, args: A): Promise<R>;
 }
 

@@ -82,12 +82,16 @@ export class PaymentsService implements OnModuleInit {
         name: 'payment.request',
         args: RequestPaymentDto,
         roles: ['owner', 'tech', 'customer'],
+        // A Checkout Session made, older links expired at the provider.
+        reachesOutside: true,
         run: (c, a) => this.request(c, a),
       }),
       command({
         name: 'payment.refund',
         args: RefundDto,
         roles: ['owner'],
+        // The refund is made at the provider.
+        reachesOutside: true,
         run: (c, a) => this.refund(c, a),
       }),
       command({

@@ -1,6 +1,7 @@
 import { HttpStatus, Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import Stripe from 'stripe';
+import { beforeCallingOut } from '../commands/call-out';
 import { AppException } from '../common/app.exception';
 import type { EnvironmentVariables } from '../config/env.validation';
 
@@ -17,7 +18,7 @@ const DEV_SECRETS = new Set(['sk_test_panelpass_local', 'whsec_panelpass_local_o
  */
 @Injectable()
 export class StripeGateway {
-  readonly client: Stripe;
+  private readonly sdk: Stripe;
   private readonly webhookSecret: string;
   private readonly problem: string | null;
 
@@ -33,7 +34,7 @@ export class StripeGateway {
       : production
         ? {}
         : LOCAL_FAKE;
-    this.client = new Stripe(key, {
+    this.sdk = new Stripe(key, {
       ...endpoint,
       maxNetworkRetries: config.get('STRIPE_MAX_NETWORK_RETRIES', { infer: true }),
       timeout: config.get('STRIPE_TIMEOUT_MS', { infer: true }),
@@ -44,6 +45,15 @@ export class StripeGateway {
         ? 'Card payments are not set up on this server (STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET)'
         : null;
     if (this.problem) new Logger('StripeGateway').warn(this.problem);
+  }
+
+  /**
+   * The SDK, for a call to the provider: never from a run the sync push may repeat (see
+   * `beforeCallingOut`; the commands that call it are marked `reachesOutside`).
+   */
+  get client(): Stripe {
+    beforeCallingOut();
+    return this.sdk;
   }
 
   /** 503 when card payments cannot be taken here. */

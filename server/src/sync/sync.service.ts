@@ -8,11 +8,17 @@ import {
   type SyncRow,
   type SyncTable,
 } from '@panelpass/shared';
-import { DataSource, EntityManager, type EntityTarget, type ObjectLiteral } from 'typeorm';
+import { DataSource, EntityManager, type EntityTarget, In, type ObjectLiteral } from 'typeorm';
 import { jsonRows } from '../database/json-rows';
 import { preparedQuery } from '../database/prepared-query';
 import type { Actor } from '../auth/current-user.decorator';
-import { CommandBus, lockBusinessWrites } from '../commands/command-bus.service';
+import { CallOutInRerunnableRun, type RerunnableRun, runRerunnable } from '../commands/call-out';
+import {
+  type AuditRow,
+  CommandBus,
+  lockBusinessWrites,
+  writeAudit,
+} from '../commands/command-bus.service';
 import { toErrorBody } from '../common/all-exceptions.filter';
 import { AppException, type ErrorBody } from '../common/app.exception';
 import type { PullQueryDto, PushDto } from './dto/sync.dto';
@@ -28,8 +34,13 @@ interface PullRow {
   cut: string | null;
   [table: `t${number}`]: unknown[][] | null;
 }
-/** Mutations per push transaction: one disk flush per chunk, and a short hold of the write lock. */
-const PUSH_CHUNK = 50;
+/**
+ * Mutations per push transaction: one disk flush per chunk, and a short hold of the business's
+ * write lock — a chunk also closes once it has taken PUSH_CHUNK_MS (after the mutation in hand),
+ * so heavy commands do not hold the lock long.
+ */
+const PUSH_CHUNK = 100;
+const PUSH_CHUNK_MS = 250;
 
 /** Tables a helper sees through the jobs assigned to them (by `job_id`). */
 const JOB_CHILD_TABLES = new Set<SyncTable>([
@@ -69,6 +80,28 @@ function permanentFailure(e: unknown): ErrorBody | null {
   return body.statusCode >= 400 && body.statusCode < 500 && body.statusCode !== 429 ? body : null;
 }
 
+/** Thrown out of an optimistic chunk's transaction: roll it back, run the chunk carefully. */
+class RunCarefully extends Error {}
+
+/** A refusal as the device is told it (also when told again: a retried push). */
+function refusal(
+  id: number,
+  r: Pick<SyncRejection, 'code' | 'message'> & { details?: unknown },
+): MutationOutcome {
+  return {
+    id,
+    status: 'rejected',
+    code: r.code,
+    message: r.message,
+    ...(r.details !== null && r.details !== undefined ? { details: r.details } : {}),
+  };
+}
+
+interface ChunkDone {
+  outcomes: MutationOutcome[];
+  last: number;
+}
+
 @Injectable()
 export class SyncService {
   private readonly logger = new Logger('Sync');
@@ -79,71 +112,141 @@ export class SyncService {
   ) {}
 
   /**
-   * Applies the pushed mutations in order, exactly once. Mutations go in chunks of up to
-   * PUSH_CHUNK per transaction, each mutation inside a savepoint of its own, and the device's
-   * `lastMutationId` moves in the same transaction — so a retried push skips what was done,
-   * and a crash loses nothing the device will not send again. (One transaction per mutation
-   * would pay one disk flush per mutation; see docs/sync.md.) A mutation refused for good is
-   * rolled back to its savepoint, recorded with its reason, and still advances the counter; a
-   * passing failure (the database going away) aborts the chunk, and the device sends the rest
-   * again later.
+   * Applies the pushed mutations in order, exactly once. Mutations go in chunks, one
+   * transaction each (up to PUSH_CHUNK mutations, closed early once it has taken
+   * PUSH_CHUNK_MS), and the device's `lastMutationId` moves in the same transaction — so a
+   * retried push skips what was done, and a crash loses nothing the device will not send
+   * again. (One transaction per mutation would pay one disk flush per mutation; see
+   * docs/sync.md.)
+   *
+   * A chunk is first run straight through, its audit entries written together at its end
+   * (optimistic). If any mutation in it is refused for good, that whole transaction is rolled
+   * back and the chunk is run again carefully: each mutation inside a savepoint of its own, so
+   * a refused one is rolled back alone, recorded with its reason, and still advances the
+   * counter. Refusals are rare, so most chunks pay no savepoints. A passing failure (the
+   * database going away) aborts the chunk either way, and the device sends the rest again.
    */
   async push(actor: Actor, dto: PushDto): Promise<PushResponse> {
     this.checkRole(actor);
     const mutations = [...dto.mutations].sort((a, b) => a.id - b.id);
     const results: MutationOutcome[] = [];
     let lastMutationId = await this.ensureClient(actor, dto.clientId);
-    for (let i = 0; i < mutations.length; i += PUSH_CHUNK) {
+    let i = 0;
+    while (i < mutations.length) {
       const chunk = mutations.slice(i, i + PUSH_CHUNK);
-      const done = await this.db.transaction(async (m) => {
-        const client = await m.findOne(SyncClient, {
-          where: { clientId: dto.clientId },
-          lock: { mode: 'pessimistic_write' },
-        });
-        if (!client) throw new Error('sync client vanished');
-        // Taken here, outside the savepoints: a lock taken inside one is let go when it rolls back.
-        await lockBusinessWrites(m, actor.businessId);
-        let last = client.lastMutationId;
-        const outcomes: MutationOutcome[] = [];
-        for (const mutation of chunk) {
-          if (mutation.id <= last) {
-            outcomes.push(await this.earlierOutcome(m, dto.clientId, mutation.id));
-            continue;
-          }
-          outcomes.push(await this.applyOne(m, actor, dto.clientId, mutation));
-          last = mutation.id;
-        }
-        if (last !== client.lastMutationId) {
-          await m.update(SyncClient, { clientId: dto.clientId }, { lastMutationId: last });
-        }
-        return { outcomes, last };
-      });
+      let done: ChunkDone;
+      try {
+        done = await runRerunnable((run) =>
+          this.db.transaction((m) => this.runChunk(m, actor, dto.clientId, chunk, run)),
+        );
+      } catch (e) {
+        if (!(e instanceof RunCarefully)) throw e;
+        done = await this.db.transaction((m) => this.runChunk(m, actor, dto.clientId, chunk, null));
+      }
       results.push(...done.outcomes);
       lastMutationId = done.last;
+      i += done.outcomes.length;
     }
     return { lastMutationId, results, serverTime: Date.now() };
   }
 
   /**
-   * A mutation dealt with before (a retried push): `skipped` if it was applied, or its
-   * refusal again — so a device whose answer was lost still learns why.
+   * One chunk in one transaction, from its first mutation until the chunk ends or its time is
+   * up; answers an outcome for each mutation dealt with. Optimistic (`run` given): no
+   * savepoints, audit entries written in one statement at the end, and the first refusal throws
+   * `RunCarefully`, which rolls back everything the chunk did. A command that reaches outside
+   * the database (`reachesOutside`: the card provider) must not run in a transaction that may
+   * be rolled back and run again, so at the first such command the rest of the chunk goes
+   * carefully, in the same transaction. Careful (`run` null): a savepoint per mutation.
    */
-  private async earlierOutcome(
+  private async runChunk(
     m: EntityManager,
+    actor: Actor,
     clientId: string,
-    id: number,
-  ): Promise<MutationOutcome> {
-    const refused = await m.findOne(SyncRejection, { where: { clientId, mutationId: id } });
-    if (!refused) return { id, status: 'skipped' };
-    return {
-      id,
-      status: 'rejected',
-      code: refused.code,
-      message: refused.message,
-      ...(refused.details !== null ? { details: refused.details } : {}),
-    };
+    chunk: PushDto['mutations'],
+    run: RerunnableRun | null,
+  ): Promise<ChunkDone> {
+    const started = Date.now();
+    const client = await m.findOne(SyncClient, {
+      where: { clientId },
+      lock: { mode: 'pessimistic_write' },
+    });
+    if (!client) throw new Error('sync client vanished');
+    // Taken here, outside the savepoints: a lock taken inside one is let go when it rolls back.
+    await lockBusinessWrites(m, actor.businessId);
+    let last = client.lastMutationId;
+    // A mutation dealt with before is `skipped` if it was applied, else refused again.
+    const refused = await this.earlierRefusals(m, clientId, chunk, last);
+    const outcomes: MutationOutcome[] = [];
+    const audit: AuditRow[] = [];
+    for (const mutation of chunk) {
+      if (mutation.id <= last) {
+        outcomes.push(refused.get(mutation.id) ?? { id: mutation.id, status: 'skipped' });
+      } else {
+        if (run?.active && this.bus.reachesOutside(mutation.name)) {
+          await this.writeChunkAudit(m, audit.splice(0));
+          run.active = false;
+        }
+        if (run?.active) {
+          try {
+            await this.bus.executeIn(m, actor, mutation.name, mutation.args, clientId, audit);
+          } catch (e) {
+            // `calledOut` too: the command may have wrapped the throw in an error of its own.
+            if (run.calledOut || e instanceof CallOutInRerunnableRun || permanentFailure(e)) {
+              throw new RunCarefully();
+            }
+            throw e;
+          }
+          if (run.calledOut) throw new RunCarefully();
+          outcomes.push({ id: mutation.id, status: 'applied' });
+        } else {
+          const outcome = await this.applyOne(m, actor, clientId, mutation);
+          if (outcome.status === 'rejected') refused.set(mutation.id, outcome);
+          outcomes.push(outcome);
+        }
+        last = mutation.id;
+      }
+      if (Date.now() - started >= PUSH_CHUNK_MS) break;
+    }
+    await this.writeChunkAudit(m, audit);
+    if (last !== client.lastMutationId) {
+      await m.update(SyncClient, { clientId }, { lastMutationId: last });
+    }
+    return { outcomes, last };
   }
 
+  /**
+   * The optimistic run's audit entries. Refused for good (an entry PostgreSQL will not take),
+   * the chunk goes again carefully, where each mutation writes its own and only the one at
+   * fault is refused.
+   */
+  private async writeChunkAudit(m: EntityManager, rows: AuditRow[]): Promise<void> {
+    try {
+      await writeAudit(m, rows);
+    } catch (e) {
+      if (permanentFailure(e)) throw new RunCarefully();
+      throw e;
+    }
+  }
+
+  /**
+   * The recorded refusals among the chunk's mutations dealt with before (a retried push), in
+   * one query: their outcome is the refusal again, so a device whose answer was lost still
+   * learns why; the others were applied.
+   */
+  private async earlierRefusals(
+    m: EntityManager,
+    clientId: string,
+    chunk: PushDto['mutations'],
+    last: number,
+  ): Promise<Map<number, MutationOutcome>> {
+    const ids = chunk.filter((x) => x.id <= last).map((x) => x.id);
+    if (!ids.length) return new Map();
+    const rows = await m.find(SyncRejection, { where: { clientId, mutationId: In(ids) } });
+    return new Map(rows.map((r) => [r.mutationId, refusal(r.mutationId, r)]));
+  }
+
+  /** One mutation in a savepoint of its own (the careful run); a refusal is recorded. */
   private async applyOne(
     m: EntityManager,
     actor: Actor,
@@ -159,13 +262,6 @@ export class SyncService {
     } catch (e) {
       const body = permanentFailure(e);
       if (!body) throw e;
-      const outcome: MutationOutcome = {
-        id: mutation.id,
-        status: 'rejected',
-        code: body.code,
-        message: body.message,
-        ...(body.details !== undefined ? { details: body.details } : {}),
-      };
       await m.insert(SyncRejection, {
         clientId,
         businessId: actor.businessId,
@@ -175,7 +271,7 @@ export class SyncService {
         message: body.message,
         details: body.details ?? null,
       });
-      return outcome;
+      return refusal(mutation.id, body);
     }
   }
 
