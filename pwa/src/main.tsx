@@ -27,14 +27,11 @@ function startApp() {
   // from disk (cold, that takes a few hundred ms) and fetch the tab shell and Today's screen
   // beside the app's code, not one after the other as they render (the lazy pages then find
   // them loaded). While that code arrives the main thread would wait: it loads the locale's
-  // data for formatting (app/warmIntl.ts) and builds the database object (db/preparedLocalDb.ts)
-  // then, in short tasks of their own, instead of inside the first screen's render.
+  // data for formatting then (app/warmIntl.ts), in short tasks of its own, instead of inside the
+  // first screen's render.
   if (user !== null && role !== 'customer' && window.location.pathname === '/today') {
-    const owner = { userId: user.id, businessId: user.businessId, role: user.role };
     void warmLocalDb(user.id).catch(() => undefined);
     warmIntl();
-    // The module's first run (Dexie's) and the object's build, each in a task of its own.
-    void import('./db/preparedLocalDb').then((m) => setTimeout(() => m.prepareLocalDb(owner)));
     void import('./app/MainTabs');
     void import('./pages/TodayPage');
   }

@@ -3,8 +3,7 @@ import type { CommandName } from '@panelpass/shared';
 import { whenIdle } from '../app/lazySheet';
 import { apiClient, sessionStore } from '../app/services';
 import { useSession } from '../features/auth/hooks/useSession';
-import type { LocalDb, DbOwner } from '../db/localDb';
-import { takeLocalDb } from '../db/preparedLocalDb';
+import { LocalDb, type DbOwner } from '../db/localDb';
 import { SyncActionsContext, SyncContext, type SyncActions } from './context';
 import type { SyncEngine } from './engine';
 import { useLiveSyncStatus } from './useLiveSyncStatus';
@@ -80,7 +79,7 @@ export function SyncProvider({ children }: { children: ReactNode }) {
 
   useEffect(() => {
     if (!userId || !businessId || !role) return;
-    const db = takeLocalDb({ userId, businessId, role });
+    const db = new LocalDb({ userId, businessId, role });
     let ended = false;
     let engine: SyncEngine | null = null;
     let cancelIdle = () => undefined as void;
