@@ -43,7 +43,7 @@ function registerProbes(bus: CommandBus): void {
       reachesOutside: true,
       run: ({ m }, a) => {
         entered.push(a.id);
-        beforeCallingOut();
+        beforeCallingOut(m);
         calledOut.push(a.id);
         return m.query('SELECT 1');
       },
@@ -53,9 +53,9 @@ function registerProbes(bus: CommandBus): void {
       name: 'probe.callOutUnmarked',
       args: ProbeArgs,
       roles: ['owner'],
-      run: async (_c, a) => {
+      run: async ({ m }, a) => {
         entered.push(a.id);
-        beforeCallingOut();
+        beforeCallingOut(m);
         calledOut.push(a.id);
         return Promise.resolve();
       },
@@ -65,10 +65,10 @@ function registerProbes(bus: CommandBus): void {
       name: 'probe.callOutWrapped',
       args: ProbeArgs,
       roles: ['owner'],
-      run: async (_c, a) => {
+      run: async ({ m }, a) => {
         entered.push(a.id);
         try {
-          beforeCallingOut();
+          beforeCallingOut(m);
         } catch {
           throw new AppException(502, 'payment-provider-unreachable', 'did not answer');
         }

@@ -278,7 +278,7 @@ export class PaymentsService implements OnModuleInit {
     await this.expireOlderLinks(m, job.id, a.kind);
     let session: Stripe.Checkout.Session;
     try {
-      session = await this.stripe.client.checkout.sessions.create(params, {
+      session = await this.stripe.clientIn(m).checkout.sessions.create(params, {
         idempotencyKey: a.opId,
       });
     } catch (e) {
@@ -330,7 +330,7 @@ export class PaymentsService implements OnModuleInit {
     for (const p of older) {
       if (!p.providerRef) continue;
       try {
-        await this.stripe.client.checkout.sessions.expire(p.providerRef);
+        await this.stripe.clientIn(m).checkout.sessions.expire(p.providerRef);
         await m.update(
           Payment,
           { id: p.id },
@@ -407,7 +407,7 @@ export class PaymentsService implements OnModuleInit {
     this.stripe.checkUsable();
     let refund: Stripe.Refund;
     try {
-      refund = await this.stripe.client.refunds.create(
+      refund = await this.stripe.clientIn(m).refunds.create(
         {
           payment_intent: original.providerIntent,
           amount: a.amountMinor,

@@ -1,6 +1,7 @@
 import { HttpStatus, Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import Stripe from 'stripe';
+import type { EntityManager } from 'typeorm';
 import { beforeCallingOut } from '../commands/call-out';
 import { AppException } from '../common/app.exception';
 import type { EnvironmentVariables } from '../config/env.validation';
@@ -48,11 +49,12 @@ export class StripeGateway {
   }
 
   /**
-   * The SDK, for a call to the provider: never from a run the sync push may repeat (see
-   * `beforeCallingOut`; the commands that call it are marked `reachesOutside`).
+   * The SDK, for a call to the provider made by a command in the transaction `m`: never from a
+   * run the sync push may repeat (see `beforeCallingOut`; the commands that call it are marked
+   * `reachesOutside`).
    */
-  get client(): Stripe {
-    beforeCallingOut();
+  clientIn(m: EntityManager): Stripe {
+    beforeCallingOut(m);
     return this.sdk;
   }
 

@@ -12,7 +12,7 @@ import { DataSource, EntityManager, type EntityTarget, In, type ObjectLiteral } 
 import { jsonRows } from '../database/json-rows';
 import { preparedQuery } from '../database/prepared-query';
 import type { Actor } from '../auth/current-user.decorator';
-import { CallOutInRerunnableRun, type RerunnableRun, runRerunnable } from '../commands/call-out';
+import { CallOutInRerunnableRun, markRerunnable } from '../commands/call-out';
 import {
   type AuditRow,
   CommandBus,
@@ -136,12 +136,12 @@ export class SyncService {
       const chunk = mutations.slice(i, i + PUSH_CHUNK);
       let done: ChunkDone;
       try {
-        done = await runRerunnable((run) =>
-          this.db.transaction((m) => this.runChunk(m, actor, dto.clientId, chunk, run)),
-        );
+        done = await this.db.transaction((m) => this.runChunk(m, actor, dto.clientId, chunk, true));
       } catch (e) {
         if (!(e instanceof RunCarefully)) throw e;
-        done = await this.db.transaction((m) => this.runChunk(m, actor, dto.clientId, chunk, null));
+        done = await this.db.transaction((m) =>
+          this.runChunk(m, actor, dto.clientId, chunk, false),
+        );
       }
       results.push(...done.outcomes);
       lastMutationId = done.last;
@@ -152,21 +152,22 @@ export class SyncService {
 
   /**
    * One chunk in one transaction, from its first mutation until the chunk ends or its time is
-   * up; answers an outcome for each mutation dealt with. Optimistic (`run` given): no
+   * up; answers an outcome for each mutation dealt with. Optimistic (`straight`): no
    * savepoints, audit entries written in one statement at the end, and the first refusal throws
    * `RunCarefully`, which rolls back everything the chunk did. A command that reaches outside
    * the database (`reachesOutside`: the card provider) must not run in a transaction that may
    * be rolled back and run again, so at the first such command the rest of the chunk goes
-   * carefully, in the same transaction. Careful (`run` null): a savepoint per mutation.
+   * carefully, in the same transaction. Careful: a savepoint per mutation.
    */
   private async runChunk(
     m: EntityManager,
     actor: Actor,
     clientId: string,
     chunk: PushDto['mutations'],
-    run: RerunnableRun | null,
+    straight: boolean,
   ): Promise<ChunkDone> {
     const started = Date.now();
+    const run = straight ? markRerunnable(m) : null;
     const client = await m.findOne(SyncClient, {
       where: { clientId },
       lock: { mode: 'pessimistic_write' },
