@@ -1,4 +1,4 @@
-import { IsObject, IsString } from 'class-validator';
+import { IsEmail, IsObject, IsString } from 'class-validator';
 import { AppException } from './app.exception';
 import { createValidationPipe, MAX_INPUT_DEPTH, nestedDeeperThan } from './validation.pipe';
 
@@ -8,6 +8,11 @@ class NoteDto {
 
   @IsObject()
   record: Record<string, unknown>;
+}
+
+class InviteDto {
+  @IsEmail()
+  email: string;
 }
 
 const nest = (levels: number, asArray = false): unknown => {
@@ -53,5 +58,18 @@ describe('the global validation pipe', () => {
     await expect(pipe.transform(ok, body)).resolves.toBeInstanceOf(NoteDto);
     const err = await pipe.transform({ note: 5, record: {} }, body).catch((e: unknown) => e);
     expect((err as AppException).getResponse()).toMatchObject({ code: 'validation-failed' });
+  });
+
+  it('answers 400 validation-failed when a rule throws on the value (a lone surrogate in an e-mail)', async () => {
+    const invite = { type: 'body' as const, metatype: InviteDto, data: '' };
+    const err = await pipe.transform({ email: '\ud800' }, invite).catch((e: unknown) => e);
+    expect(err).toBeInstanceOf(AppException);
+    expect((err as AppException).getResponse()).toMatchObject({
+      statusCode: 400,
+      code: 'validation-failed',
+    });
+    await expect(pipe.transform({ email: 'ok@example.test' }, invite)).resolves.toBeInstanceOf(
+      InviteDto,
+    );
   });
 });

@@ -50,7 +50,18 @@ class AppValidationPipe extends ValidationPipe {
         `Objects and lists may be nested at most ${MAX_INPUT_DEPTH} levels deep`,
       );
     }
-    return (await super.transform(value, metadata)) as unknown;
+    try {
+      return (await super.transform(value, metadata)) as unknown;
+    } catch (error) {
+      if (error instanceof AppException) throw error;
+      // A rule that throws on the value itself (class-validator's e-mail rule given a lone
+      // UTF-16 surrogate throws URIError) is bad input, not a server fault: 400, never 500.
+      throw new AppException(
+        HttpStatus.BAD_REQUEST,
+        'validation-failed',
+        'Some of what was sent cannot be checked (is there a broken character in it?)',
+      );
+    }
   }
 }
 
