@@ -27,9 +27,8 @@ function storage(): Storage | null {
  * conversions and formatters every field screen uses. From the server when there is a
  * signal (asked once the first screen is up); the last answer is kept on the phone, so it holds
  * offline and meanwhile; µm and °C (and the other defaults) until the owner's settings have been
- * seen once. A helper is given no
- * settings by the server and works with the defaults, in the display units they chose for
- * themselves (Settings, on their phone).
+ * seen once. A helper is given no settings by the server and works with the defaults, in the
+ * display units they chose for themselves (Settings, on their phone).
  */
 export function useUnits(): UnitsView {
   const user = useSession()?.user ?? null;
