@@ -12,8 +12,10 @@
 // is saturated and the latency is mostly queueing) and open loop (the same connections sharing a
 // fixed total rate, API_BENCH_RATE req/s: latency at a stated, realistic load).
 import { randomUUID } from 'node:crypto';
+import { readdirSync, readFileSync } from 'node:fs';
 import http from 'node:http';
 import { performance } from 'node:perf_hooks';
+import { brotliDecompressSync, gunzipSync } from 'node:zlib';
 import pg from 'pg';
 import { api, hammer, ms } from './autocannon-lib.mjs';
 import { addJobs, addPools, dayFrom, tableCounts } from './datagen.mjs';
@@ -26,6 +28,47 @@ const YEARS = Number(process.env.API_BENCH_YEARS ?? 1);
 const RATE = Number(process.env.API_BENCH_RATE ?? 100);
 const GOAL_MS = 50;
 
+/** Lighthouse's mobile preset's downlink ("slow 4G", 1,638.4 kbit/s): a phone on a poor line. */
+const SLOW_LINE_BYTES_PER_S = (1638.4 * 1024) / 8;
+
+/**
+ * One GET as a phone sends it, with `acceptEncoding`: the parsed JSON, the bytes on the wire and
+ * the bytes after decoding (server/src/common/compress-api.ts decides the coding).
+ */
+function getWire(path, token, acceptEncoding) {
+  return new Promise((resolve, reject) => {
+    const req = http.get(
+      url + path,
+      { headers: { authorization: `Bearer ${token}`, 'accept-encoding': acceptEncoding } },
+      (res) => {
+        const chunks = [];
+        res.on('data', (c) => chunks.push(c));
+        res.on('end', () => {
+          const wire = Buffer.concat(chunks);
+          if (res.statusCode !== 200) return reject(new Error(`${path}: ${res.statusCode}`));
+          const coding = res.headers['content-encoding'] ?? 'identity';
+          const body =
+            coding === 'br'
+              ? brotliDecompressSync(wire)
+              : coding === 'gzip'
+                ? gunzipSync(wire)
+                : wire;
+          resolve({
+            json: JSON.parse(body.toString('utf8')),
+            wire: wire.length,
+            plain: body.length,
+            coding,
+          });
+        });
+        res.on('error', reject);
+      },
+    );
+    req.on('error', reject);
+  });
+}
+const kB = (n) => `${(n / 1024).toFixed(1)} kB`;
+const onSlowLine = (n) => `${(n / SLOW_LINE_BYTES_PER_S).toFixed(2)} s`;
+
 /**
  * Open loop: `rate` requests a second in all, sent at even intervals over at most `connections`
  * keep-alive sockets, for `seconds`. Each latency counts from when the request was due, so a
@@ -36,7 +79,10 @@ const GOAL_MS = 50;
 async function steady(path, { token, connections, rate, seconds }) {
   const agent = new http.Agent({ keepAlive: true, maxSockets: connections });
   const target = new URL(url + path);
-  const headers = token ? { authorization: `Bearer ${token}` } : {};
+  const headers = {
+    ...(token ? { authorization: `Bearer ${token}` } : {}),
+    ...(process.env.API_BENCH_ACCEPT ? { 'accept-encoding': process.env.API_BENCH_ACCEPT } : {}),
+  };
   const latencies = [];
   let bad = 0;
   const one = (due) =>
@@ -155,14 +201,22 @@ console.log(
     `photos ${counts.photos}, payments ${counts.payments}, invoices ${counts.invoices})`,
 );
 
-// 2. A first full pull, page after page (reported apart: a new phone does it once).
+// 2. A first full pull, page after page (reported apart: a new phone does it once), taking
+// brotli as Chromium does.
 t0 = performance.now();
 let full = 0;
 let pages = 0;
+let fullWire = 0;
+let fullPlain = 0;
 for (let c = 0; ; pages++) {
-  const res = await api(url, `/api/sync/pull?cursor=${c}&scope=0&clientId=${randomUUID()}`, {
+  const page = await getWire(
+    `/api/sync/pull?cursor=${c}&scope=0&clientId=${randomUUID()}`,
     token,
-  });
+    'gzip, deflate, br, zstd',
+  );
+  const res = page.json;
+  fullWire += page.wire;
+  fullPlain += page.plain;
   for (const list of Object.values(res.changes)) full += list.length;
   c = res.cursor;
   if (!res.more) {
@@ -183,7 +237,8 @@ const rowsOf = async (path) => {
   return n;
 };
 console.log(
-  `full pull: ${full} rows in ${pages} pages in ${fullSeconds.toFixed(1)} s (one phone, first sign-in)`,
+  `full pull: ${full} rows in ${pages} pages in ${fullSeconds.toFixed(1)} s (one phone, first sign-in); ` +
+    `${kB(fullWire)} on the wire as brotli, ${kB(fullPlain)} plain (${((100 * fullWire) / fullPlain).toFixed(0)} %)`,
 );
 console.log(
   `pull:      ${await rowsOf(pullPath)} rows since a few minutes ago (what a phone pulls every few minutes); ` +
@@ -191,6 +246,7 @@ console.log(
 );
 
 const list = `/api/jobs?from=${dayFrom(today, -7)}T00:00:00Z&to=${dayFrom(today, 8)}T00:00:00Z&limit=50`;
+const only = process.env.API_BENCH_ONLY?.split(',');
 const endpoints = [
   ['trivial', '/api/health/live', null],
   ['pull', pullPath, token],
@@ -198,7 +254,48 @@ const endpoints = [
   ['job', `/api/jobs/${jobId}`, token],
   ['workspace', `/api/jobs/${jobId}/workspace`, token],
   ['list', list, token],
-];
+].filter(([name]) => name === 'trivial' || !only || only.includes(name));
+
+/**
+ * CPU time used so far (ms, user + system, from /proc) by the server (BENCH_SERVER_PID, set by
+ * lib.sh) and by every PostgreSQL process: where a request's time goes.
+ */
+function cpuMs() {
+  const tick = 1000 / 100; // USER_HZ is 100 on Linux
+  const of = (pid) => {
+    try {
+      const f = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+      return {
+        comm: readFileSync(`/proc/${pid}/comm`, 'utf8').trim(),
+        ms: (Number(f[11]) + Number(f[12])) * tick,
+      };
+    } catch {
+      return null; // gone meanwhile
+    }
+  };
+  let database = 0;
+  for (const pid of readdirSync('/proc').filter((d) => /^\d+$/.test(d))) {
+    const p = of(pid);
+    if (p?.comm === 'postgres') database += p.ms;
+  }
+  const server = process.env.BENCH_SERVER_PID ? (of(process.env.BENCH_SERVER_PID)?.ms ?? NaN) : NaN;
+  return { server, database };
+}
+
+// What each answer weighs on a phone's line, plain and as the app's browser takes it.
+console.log(
+  `wire size (one answer; time at Lighthouse's slow-4G downlink, ${(SLOW_LINE_BYTES_PER_S / 1024).toFixed(0)} kB/s, before round trips):`,
+);
+for (const [name, path, auth] of endpoints) {
+  if (!auth) continue;
+  const plain = await getWire(path, auth, 'identity');
+  const br = await getWire(path, auth, 'gzip, deflate, br, zstd');
+  const gz = await getWire(path, auth, 'gzip');
+  console.log(
+    `  ${name.padEnd(10)} plain ${kB(plain.wire).padStart(9)} (${onSlowLine(plain.wire)})   ` +
+      `${br.coding} ${kB(br.wire).padStart(8)} (${onSlowLine(br.wire)})   ${gz.coding} ${kB(gz.wire).padStart(8)}`,
+  );
+}
 
 // 3. Each endpoint warmed up, then hammered, one after the other in this run.
 const results = {};
@@ -206,13 +303,21 @@ for (const [name, path, auth] of endpoints) {
   // Waits until the server has finished what the previous endpoint left queued.
   await api(url, path, { token: auth });
   if (WARMUP > 0) await hammer(url, path, { token: auth, connections: 10, seconds: WARMUP });
+  const before = cpuMs();
   results[name] = await hammer(url, path, {
     token: auth,
     connections: CONNECTIONS,
     seconds: SECONDS,
   });
+  const after = cpuMs();
   const r = results[name];
-  console.log(`  ${name}: ${r.rps.toFixed(0)} req/s, p50 ${ms(r.p50)} ms, p99 ${ms(r.p99)} ms`);
+  const n = r.rps * SECONDS;
+  r.serverCpu = (after.server - before.server) / n;
+  r.databaseCpu = (after.database - before.database) / n;
+  console.log(
+    `  ${name}: ${r.rps.toFixed(0)} req/s, p50 ${ms(r.p50)} ms, p99 ${ms(r.p99)} ms; ` +
+      `CPU per request: server ${r.serverCpu.toFixed(2)} ms, database ${r.databaseCpu.toFixed(2)} ms`,
+  );
 }
 
 // 4. The same endpoints at a fixed total rate (open loop): what a phone waits at that load.
@@ -234,11 +339,14 @@ const base = results.trivial;
 console.log(
   `\nclosed loop: ${CONNECTIONS} connections, ${SECONDS} s each (2 shared cores; other work on the machine shares them)`,
 );
-console.log('endpoint     req/s     p50 ms   p99 ms   p99 ÷ trivial   req/s ÷ trivial');
+console.log(
+  'endpoint     req/s     p50 ms   p99 ms   p99 ÷ trivial   req/s ÷ trivial   CPU ms/req: server  database',
+);
 for (const [name, , ,] of endpoints) {
   const r = results[name];
   console.log(
-    `${name.padEnd(10)} ${r.rps.toFixed(0).padStart(7)} ${ms(r.p50).padStart(10)} ${ms(r.p99).padStart(8)} ${(r.p99 / base.p99).toFixed(1).padStart(12)}× ${(r.rps / base.rps).toFixed(2).padStart(15)}`,
+    `${name.padEnd(10)} ${r.rps.toFixed(0).padStart(7)} ${ms(r.p50).padStart(10)} ${ms(r.p99).padStart(8)} ${(r.p99 / base.p99).toFixed(1).padStart(12)}× ${(r.rps / base.rps).toFixed(2).padStart(15)}` +
+      `${r.serverCpu.toFixed(2).padStart(21)} ${r.databaseCpu.toFixed(2).padStart(9)}`,
   );
 }
 console.log(`\nopen loop: ${RATE} req/s in all over ${CONNECTIONS} connections, ${SECONDS} s each`);
@@ -248,6 +356,10 @@ for (const [name] of endpoints) {
   console.log(
     `${name.padEnd(10)} ${r.rps.toFixed(0).padStart(7)} ${ms(r.p50).padStart(10)} ${ms(r.p99).padStart(8)}`,
   );
+}
+if (only) {
+  console.log(`api: only ${only.join(', ')} (API_BENCH_ONLY): no verdict`);
+  process.exit(0);
 }
 const measured = ['pull', 'pull-day', 'job', 'workspace', 'list'];
 const worst = Math.max(...measured.map((n) => results[n].p99));

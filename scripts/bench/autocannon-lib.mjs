@@ -28,7 +28,11 @@ export async function hammer(url, path, { token, connections, seconds }) {
     connections,
     duration: seconds,
     timeout: 30,
-    headers: token ? { authorization: `Bearer ${token}` } : {},
+    headers: {
+      ...(token ? { authorization: `Bearer ${token}` } : {}),
+      // API_BENCH_ACCEPT=br: ask for compressed answers, as a browser does (none by default).
+      ...(process.env.API_BENCH_ACCEPT ? { 'accept-encoding': process.env.API_BENCH_ACCEPT } : {}),
+    },
   });
   const bad = result.non2xx + result.errors + result.timeouts;
   if (bad > 0 || result.requests.total === 0) {

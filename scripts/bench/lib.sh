@@ -36,6 +36,7 @@ bench_server() {
   env ${PANELPASS_BENCH_PWA_DIST:+PWA_DIST=$PANELPASS_BENCH_PWA_DIST} ${FOLLOW_UPS:+FOLLOW_UPS=$FOLLOW_UPS} \
     NODE_ENV=production HOST=127.0.0.1 PORT=$port SIGN_IN_LIMIT=100000 node "$dist/main.js" >"$log" 2>&1 &
   BENCH_SERVER_PID=$!
+  export BENCH_SERVER_PID
   wait_for_http "http://127.0.0.1:$port/api/health" 60 || { cat "$log"; exit 1; }
   export BENCH_URL="http://127.0.0.1:$port"
 }
