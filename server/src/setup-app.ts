@@ -6,6 +6,7 @@ import express from 'express';
 import helmet from 'helmet';
 import { existsSync } from 'node:fs';
 import { join, resolve } from 'node:path';
+import { compressApi } from './common/compress-api';
 import { corsOptions, refuseOtherOrigins } from './common/cors';
 import type { EnvironmentVariables } from './config/env.validation';
 import { chooseEncoding, servePrecompressed } from './static/precompressed';
@@ -60,6 +61,7 @@ export function setupApp(app: NestExpressApplication, pwaDist?: string): void {
     .get('CORS_ORIGINS', { infer: true });
   app.use(refuseOtherOrigins(origins));
   app.enableCors(corsOptions(origins));
+  app.use(compressApi());
   SwaggerModule.setup('api/docs', app, () => buildOpenApi(app), {
     jsonDocumentUrl: 'api/docs-json',
   });
