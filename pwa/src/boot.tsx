@@ -18,7 +18,9 @@ await breathe();
 startIonic();
 await breathe();
 
-const { App } = await app;
+const { App, preloadFirstScreen } = await app;
+// The first screen's code, so that it renders at once (a failure shows through the lazy page).
+await preloadFirstScreen(window.location.pathname).catch(() => undefined);
 await breathe();
 
 const root = document.getElementById('root');

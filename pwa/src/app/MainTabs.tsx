@@ -9,7 +9,7 @@ import {
 import { QueryClientProvider } from '@tanstack/react-query';
 import { Route } from 'react-router-dom';
 import { useCurrentUser } from '../features/auth/hooks/useCurrentUser';
-import { settingsPath, tabsForRole, type TabId } from '../features/shell/model/access';
+import { settingsPath, tabs, tabsForRole, type TabId } from '../features/shell/model/access';
 import { TimerDock } from '../features/timers/components/TimerDock';
 import { SyncProvider } from '../sync/SyncProvider';
 import { lazyPage } from './lazyPage';
@@ -26,6 +26,14 @@ const pages: Record<TabId, ReturnType<typeof lazyPage>> = {
 
 /** Settings: not a tab; opened from the header's Settings button. */
 const SettingsPage = lazyPage(() => import('../pages/SettingsPage'));
+
+/** Loads the code of the page at `pathname` (a tab or Settings), if any, before it is shown. */
+export async function preloadPage(pathname: string): Promise<void> {
+  const within = (base: string) => pathname === base || pathname.startsWith(`${base}/`);
+  const tab = tabs.find((t) => within(t.path));
+  if (tab) await pages[tab.id].preload();
+  else if (within(settingsPath)) await SettingsPage.preload();
+}
 
 const icons: Record<TabId, string> = {
   today: calendarClearOutline,
