@@ -250,6 +250,22 @@ const PROBE = (expected) => `(() => {
   requestAnimationFrame(frame);
 })();`;
 
+/** Stops CDP tracing and writes the trace (a JSON array of events) to `file`. */
+async function saveTrace(session, file) {
+  const done = new Promise((resolve) => session.once('Tracing.tracingComplete', resolve));
+  await session.send('Tracing.end');
+  const { stream } = await done;
+  let text = '';
+  for (;;) {
+    const chunk = await session.send('IO.read', { handle: stream });
+    text += chunk.base64Encoded ? Buffer.from(chunk.data, 'base64').toString('utf8') : chunk.data;
+    if (chunk.eof) break;
+  }
+  await session.send('IO.close', { handle: stream });
+  writeFileSync(file, text);
+  console.log(`trace of run 1 written to ${file}`);
+}
+
 async function measure() {
   const state = JSON.parse(readFileSync(stateFile, 'utf8'));
   const version = execFileSync(chromePath, ['--version'], {
@@ -271,6 +287,26 @@ async function measure() {
       const page = context.pages()[0] ?? (await context.newPage());
       const errors = [];
       page.on('pageerror', (e) => errors.push(e.message));
+      // BENCH_TRACE=<file>: a Chromium performance trace of the first run, for chrome://tracing
+      // or the DevTools Performance panel.
+      const tracing =
+        run === 1 && process.env.BENCH_TRACE ? await context.newCDPSession(page) : null;
+      if (tracing) {
+        await tracing.send('Tracing.start', {
+          transferMode: 'ReturnAsStream',
+          traceConfig: {
+            includedCategories: [
+              'devtools.timeline',
+              'disabled-by-default-devtools.timeline',
+              'v8.execute',
+              'blink.user_timing',
+              'loading',
+              'ServiceWorker',
+              'IndexedDB',
+            ],
+          },
+        });
+      }
       await page.goto(`${url}/`, { waitUntil: 'commit' });
       await page
         .waitForFunction(() => window.__ppOfflineStart.interactive !== null, null, {
@@ -288,6 +324,7 @@ async function measure() {
           console.error('what the page showed:', JSON.stringify(seen, null, 2));
           throw error;
         });
+      if (tracing) await saveTrace(tracing, process.env.BENCH_TRACE);
       const fromWorker = await page.evaluate(() => navigator.serviceWorker.controller !== null);
       const jobs = await dexieJobCount(page, state.userId);
       // The page answers input: a tap on the Jobs tab shows the Jobs screen.
@@ -309,7 +346,25 @@ async function measure() {
         });
       const t = await page.evaluate(() => window.__ppOfflineStart);
       const longAfter = t.longTasks.filter(([start]) => start >= t.content);
-      results.push({ ...t, jobs, fromWorker, errors, longAfter });
+      // Where the time went, from the page's own navigation, paint and resource timings.
+      const phases = await page.evaluate(() => {
+        const nav = performance.getEntriesByType('navigation')[0];
+        const scripts = performance
+          .getEntriesByType('resource')
+          .filter(
+            (r) => /\.js(\?|$)/.test(r.name) && r.startTime < window.__ppOfflineStart.content,
+          );
+        return {
+          worker: nav.workerStart,
+          page: nav.responseEnd,
+          paint: performance.getEntriesByName('first-contentful-paint')[0]?.startTime ?? NaN,
+          scripts: scripts.length,
+          firstScript: Math.min(...scripts.map((r) => r.startTime)),
+          lastScript: Math.max(...scripts.map((r) => r.responseEnd)),
+          list: scripts.map((r) => [r.name.replace(/.*\//, ''), r.startTime, r.responseEnd]),
+        };
+      });
+      results.push({ ...t, jobs, fromWorker, errors, longAfter, phases });
       console.log(
         `run ${run}: content ${t.content.toFixed(0)} ms, interactive ${t.interactive.toFixed(0)} ms, ` +
           `long tasks before ${t.longTasks.filter(([s]) => s < t.content).length}` +
@@ -318,6 +373,20 @@ async function measure() {
           `${fromWorker ? 'served by the service worker' : 'NOT served by the service worker'}` +
           (errors.length ? `, page errors: ${errors.join(' | ')}` : ''),
       );
+      const p = phases;
+      const at = (ms) => `${Number.isFinite(ms) ? ms.toFixed(0) : '–'} ms`;
+      console.log(
+        `       worker started ${at(p.worker)}, page from the worker ${at(p.page)}, splash painted ${at(p.paint)}, ` +
+          `${p.scripts} scripts from ${at(p.firstScript)} to ${at(p.lastScript)}, Today whole ${at(t.content)}`,
+      );
+      // BENCH_SHOW_SCRIPTS=1: each script's fetch (start → end, ms), in the order they started.
+      if (process.env.BENCH_SHOW_SCRIPTS) {
+        for (const [name, start, end] of p.list) {
+          console.log(
+            `         ${start.toFixed(0).padStart(5)} → ${end.toFixed(0).padStart(5)}  ${name}`,
+          );
+        }
+      }
     } finally {
       await context.close();
     }
