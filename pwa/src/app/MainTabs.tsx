@@ -7,12 +7,15 @@ import {
   walletOutline,
 } from 'ionicons/icons';
 import { QueryClientProvider } from '@tanstack/react-query';
+import { useEffect } from 'react';
 import { Route } from 'react-router-dom';
 import { useCurrentUser } from '../features/auth/hooks/useCurrentUser';
+import type { Role } from '../features/auth/model/session';
 import { settingsPath, tabs, tabsForRole, type TabId } from '../features/shell/model/access';
 import { TimerDock } from '../features/timers/components/TimerDock';
 import { SyncProvider } from '../sync/SyncProvider';
 import { lazyPage } from './lazyPage';
+import { whenIdle } from './lazySheet';
 import { queryClient } from './queryClient';
 import { Icon } from '../components/Icon';
 
@@ -26,6 +29,41 @@ const pages: Record<TabId, ReturnType<typeof lazyPage>> = {
 
 /** Settings: not a tab; opened from the header's Settings button. */
 const SettingsPage = lazyPage(() => import('../pages/SettingsPage'));
+
+/**
+ * Fetches the tabs' code a little after the first screen (PRELOAD_AFTER_MS, so it never competes
+ * with it), one page per idle moment, so a tab's first tap shows it at once instead of suspending
+ * (a suspended page's reveal is held back some 300 ms; see lazyPage). The service worker has
+ * them precached.
+ */
+const PRELOAD_AFTER_MS = 2000;
+
+function usePreloadedTabs(role: Role | null) {
+  useEffect(() => {
+    if (!role) return;
+    const queue = tabsForRole(role).map((tab) => pages[tab.id]);
+    let stopped = false;
+    let cancel = () => {};
+    const next = () => {
+      const page = queue.shift();
+      if (!page) return;
+      void page.preload().then(
+        () => {
+          if (!stopped) cancel = whenIdle(next);
+        },
+        () => undefined,
+      );
+    };
+    const start = window.setTimeout(() => {
+      if (!stopped) cancel = whenIdle(next);
+    }, PRELOAD_AFTER_MS);
+    return () => {
+      window.clearTimeout(start);
+      stopped = true;
+      cancel();
+    };
+  }, [role]);
+}
 
 /** Loads the code of the page at `pathname` (a tab or Settings), if any, before it is shown. */
 export async function preloadPage(pathname: string): Promise<void> {
@@ -60,6 +98,7 @@ export default function MainTabs() {
 function SignedInTabs() {
   const user = useCurrentUser();
   const visible = user ? tabsForRole(user.role) : [];
+  usePreloadedTabs(user ? user.role : null);
 
   return (
     <IonTabs>

@@ -45,3 +45,21 @@ describe('lazySheet', () => {
     }
   });
 });
+
+describe('lazySheet, code already fetched', () => {
+  it('opens in the same render once its code has arrived (no suspending, no held-back reveal)', async () => {
+    vi.useFakeTimers();
+    try {
+      const Sheet = lazySheet(() => Promise.resolve(RealSheet));
+      const { rerender } = render(<Sheet isOpen={false} title="Mask" />);
+      await act(async () => {
+        await vi.advanceTimersByTimeAsync(6000); // the idle fetch
+      });
+      rerender(<Sheet isOpen title="Mask" />);
+      // Synchronously, with the clock stopped: a lazy sheet would still be suspended here.
+      expect(screen.getByText('open: Mask')).toBeTruthy();
+    } finally {
+      vi.useRealTimers();
+    }
+  });
+});

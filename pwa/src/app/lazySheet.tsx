@@ -20,15 +20,25 @@ export function whenIdle(work: () => void): () => void {
 export function lazySheet<P extends { isOpen: boolean }>(
   load: () => Promise<ComponentType<P>>,
 ): ComponentType<P> {
-  const Sheet = lazy(async () => ({ default: await load() }));
+  let loaded: ComponentType<P> | null = null;
+  const fetchCode = () =>
+    load().then((component) => {
+      loaded = component;
+      return component;
+    });
+  const Sheet = lazy(async () => ({ default: await fetchCode() }));
   function LazySheet(props: P) {
-    const [wanted, setWanted] = useState(props.isOpen);
-    if (props.isOpen && !wanted) setWanted(true);
-    useEffect(() => whenIdle(() => void load().catch(() => undefined)), []);
-    if (!wanted) return null;
+    // Chosen when first opened, then kept: the loaded sheet itself when its code has arrived
+    // (it opens at once; a lazy one suspends, and React holds a reveal back up to 300 ms).
+    const [Chosen, setChosen] = useState<ComponentType<P> | null>(() =>
+      props.isOpen ? (loaded ?? Sheet) : null,
+    );
+    if (props.isOpen && !Chosen) setChosen(() => loaded ?? Sheet);
+    useEffect(() => whenIdle(() => void fetchCode().catch(() => undefined)), []);
+    if (!Chosen) return null;
     return (
       <Suspense fallback={null}>
-        <Sheet {...props} />
+        <Chosen {...props} />
       </Suspense>
     );
   }
