@@ -17,7 +17,10 @@
 // formatter per render, and once by 8 kB (≈240.3 kB) for starting in three parts, each run in a
 // task of its own (React's DOM renderer, Ionic, the app; src/boot.tsx): separate chunks compress
 // a little worse, and it halved the main thread's blocking time at startup (Lighthouse TBT on
-// Today 898 -> 545 ms, sign-in 298 -> 143 ms)): it stops the bundle from growing while the rest
+// Today 898 -> 545 ms, sign-in 298 -> 143 ms)), and once by 0.1 kB (≈241.07 kB) for loading the
+// first screen's code before the first render (src/App.tsx preloadFirstScreen, lazyPage's
+// preload): a suspended first screen was revealed 250-300 ms late, and an offline start showed
+// Today about 300 ms sooner without it. It stops the bundle from growing while the rest
 // of the way to 200 kB is worked on. Lower it with every step down; never raise it without
 // saying why in the commit.
 import { join, relative } from 'node:path';
@@ -32,6 +35,6 @@ export default [
     name: `sign-in + Today JavaScript, gzipped (goal ${firstScreensGoalKb} kB)`,
     path: firstScreenFiles(dist).map((file) => relative(root, join(dist, file))),
     gzip: true,
-    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '241 kB',
+    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '241.1 kB',
   },
 ];

@@ -2,6 +2,7 @@ import { IonApp, IonRouterOutlet } from '@ionic/react';
 import { IonReactRouter } from '@ionic/react-router';
 import { Route } from 'react-router-dom';
 import { lazyPage } from './app/lazyPage';
+import { within } from './features/shell/model/access';
 import { SessionRedirects } from './app/SessionRedirects';
 import { UpdateBanner } from './features/update/components/UpdateBanner';
 
@@ -19,14 +20,16 @@ const MainTabs = lazyPage(() => import('./app/MainTabs'));
  * suspending: a suspended first screen showed some 250–300 ms late (see lazyPage).
  */
 export async function preloadFirstScreen(pathname: string): Promise<void> {
-  const at = (base: string) => pathname === base || pathname.startsWith(`${base}/`);
-  if (at('/sign-in')) await SignInPage.preload();
-  else if (at('/start')) await StartBusinessPage.preload();
-  else if (at('/invite')) await InviteAcceptPage.preload();
-  else if (at('/customer')) await CustomerHomePage.preload();
-  else if (at('/c')) await CustomerLinkPage.preload();
-  else if (at('/paid')) await PaidPage.preload();
-  else await (await MainTabs.preload()).preloadPage(pathname);
+  const screens = [
+    ['/sign-in', SignInPage],
+    ['/start', StartBusinessPage],
+    ['/invite', InviteAcceptPage],
+    ['/customer', CustomerHomePage],
+    ['/c', CustomerLinkPage],
+    ['/paid', PaidPage],
+  ] as const;
+  const screen = screens.find(([base]) => within(pathname, base));
+  await (screen ? screen[1].preload() : (await MainTabs.preload()).preloadPage(pathname));
 }
 
 /**

@@ -11,11 +11,16 @@ import { useEffect } from 'react';
 import { Route } from 'react-router-dom';
 import { useCurrentUser } from '../features/auth/hooks/useCurrentUser';
 import type { Role } from '../features/auth/model/session';
-import { settingsPath, tabs, tabsForRole, type TabId } from '../features/shell/model/access';
+import {
+  settingsPath,
+  tabs,
+  tabsForRole,
+  within,
+  type TabId,
+} from '../features/shell/model/access';
 import { TimerDock } from '../features/timers/components/TimerDock';
 import { SyncProvider } from '../sync/SyncProvider';
 import { lazyPage } from './lazyPage';
-import { whenIdle } from './lazySheet';
 import { queryClient } from './queryClient';
 import { Icon } from '../components/Icon';
 
@@ -32,45 +37,28 @@ const SettingsPage = lazyPage(() => import('../pages/SettingsPage'));
 
 /**
  * Fetches the tabs' code a little after the first screen (PRELOAD_AFTER_MS, so it never competes
- * with it), one page per idle moment, so a tab's first tap shows it at once instead of suspending
- * (a suspended page's reveal is held back some 300 ms; see lazyPage). The service worker has
- * them precached.
+ * with it), one page per idle moment (app/preloadPages.ts), so a tab's first tap shows it at once
+ * instead of suspending (a suspended page's reveal is held back some 300 ms; see lazyPage). The
+ * service worker has them precached.
  */
 const PRELOAD_AFTER_MS = 2000;
 
 function usePreloadedTabs(role: Role | null) {
   useEffect(() => {
     if (!role) return;
-    const queue = tabsForRole(role).map((tab) => pages[tab.id]);
-    let stopped = false;
-    let cancel = () => {};
-    const next = () => {
-      const page = queue.shift();
-      if (!page) return;
-      void page.preload().then(
-        () => {
-          if (!stopped) cancel = whenIdle(next);
-        },
-        () => undefined,
-      );
-    };
     const start = window.setTimeout(() => {
-      if (!stopped) cancel = whenIdle(next);
+      void import('./preloadPages').then(({ preloadPages }) =>
+        preloadPages(tabsForRole(role).map((tab) => pages[tab.id])),
+      );
     }, PRELOAD_AFTER_MS);
-    return () => {
-      window.clearTimeout(start);
-      stopped = true;
-      cancel();
-    };
+    return () => window.clearTimeout(start);
   }, [role]);
 }
 
 /** Loads the code of the page at `pathname` (a tab or Settings), if any, before it is shown. */
 export async function preloadPage(pathname: string): Promise<void> {
-  const within = (base: string) => pathname === base || pathname.startsWith(`${base}/`);
-  const tab = tabs.find((t) => within(t.path));
-  if (tab) await pages[tab.id].preload();
-  else if (within(settingsPath)) await SettingsPage.preload();
+  const tab = tabs.find((t) => within(pathname, t.path));
+  await (tab ? pages[tab.id] : within(pathname, settingsPath) ? SettingsPage : null)?.preload();
 }
 
 const icons: Record<TabId, string> = {

@@ -37,7 +37,8 @@ export function homeFor(role: Role): string {
   return role === 'customer' ? customerHomePath : '/today';
 }
 
-function within(pathname: string, base: string): boolean {
+/** Whether `pathname` is `base` or a page under it. */
+export function within(pathname: string, base: string): boolean {
   return pathname === base || pathname.startsWith(`${base}/`);
 }
 
