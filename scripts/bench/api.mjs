@@ -7,7 +7,8 @@
 //   job        GET /api/jobs/:id (one of today's jobs, with names and amount due)
 //   workspace  GET /api/jobs/:id/workspace (the job page's whole field record)
 //   list       GET /api/jobs?from=&to=&limit=50 (a fortnight around today, first page)
-// and, reported apart, one first full pull (cursor 0, page after page) as a new phone does.
+// and, reported apart, one first full pull (cursor 0, page after page, in pages of the app's size,
+// PULL_PAGE_ROWS, or of each size in API_BENCH_PULL_LIMITS=1000,2500) as a new phone does.
 // Each endpoint is measured twice: closed loop (the connections send back to back, so the server
 // is saturated and the latency is mostly queueing) and open loop (the same connections sharing a
 // fixed total rate, API_BENCH_RATE req/s: latency at a stated, realistic load).
@@ -17,7 +18,10 @@ import http from 'node:http';
 import { performance } from 'node:perf_hooks';
 import { brotliDecompressSync, gunzipSync } from 'node:zlib';
 import pg from 'pg';
+import shared from '@panelpass/shared';
 import { api, hammer, ms } from './autocannon-lib.mjs';
+
+const { PULL_PAGE_ROWS } = shared;
 import { addJobs, addPools, dayFrom, tableCounts } from './datagen.mjs';
 
 const url = process.env.BENCH_URL;
@@ -203,29 +207,43 @@ console.log(
 
 // 2. A first full pull, page after page (reported apart: a new phone does it once), taking
 // brotli as Chromium does.
-t0 = performance.now();
-let full = 0;
-let pages = 0;
-let fullWire = 0;
-let fullPlain = 0;
-for (let c = 0; ; pages++) {
-  const page = await getWire(
-    `/api/sync/pull?cursor=${c}&scope=0&clientId=${randomUUID()}`,
-    token,
-    'gzip, deflate, br, zstd',
-  );
-  const res = page.json;
-  fullWire += page.wire;
-  fullPlain += page.plain;
-  for (const list of Object.values(res.changes)) full += list.length;
-  c = res.cursor;
-  if (!res.more) {
-    pages++;
-    break;
+for (const pageRows of (process.env.API_BENCH_PULL_LIMITS ?? String(PULL_PAGE_ROWS))
+  .split(',')
+  .map(Number)) {
+  t0 = performance.now();
+  let full = 0;
+  let pages = 0;
+  let fullWire = 0;
+  let fullPlain = 0;
+  let slowest = 0;
+  let largest = 0;
+  for (let c = 0; ; pages++) {
+    const t = performance.now();
+    const page = await getWire(
+      `/api/sync/pull?cursor=${c}&scope=0&clientId=${randomUUID()}&limit=${pageRows}`,
+      token,
+      'gzip, deflate, br, zstd',
+    );
+    slowest = Math.max(slowest, performance.now() - t);
+    largest = Math.max(largest, page.plain);
+    const res = page.json;
+    fullWire += page.wire;
+    fullPlain += page.plain;
+    for (const list of Object.values(res.changes)) full += list.length;
+    c = res.cursor;
+    if (!res.more) {
+      pages++;
+      break;
+    }
   }
+  const fullSeconds = (performance.now() - t0) / 1000;
+  if (full !== totalRows) throw new Error(`full pull gave ${full} rows of ${totalRows}`);
+  console.log(
+    `full pull: ${full} rows in ${pages} pages of up to ${pageRows} rows a table in ${fullSeconds.toFixed(1)} s (one phone, first sign-in); ` +
+      `${kB(fullWire)} on the wire as brotli, ${kB(fullPlain)} plain (${((100 * fullWire) / fullPlain).toFixed(0)} %); ` +
+      `largest page ${kB(largest)} plain, slowest ${slowest.toFixed(0)} ms`,
+  );
 }
-const fullSeconds = (performance.now() - t0) / 1000;
-if (full !== totalRows) throw new Error(`full pull gave ${full} rows of ${totalRows}`);
 
 const clientId = randomUUID();
 const pullPath = `/api/sync/pull?cursor=${recentCursor}&scope=0&clientId=${clientId}`;
@@ -236,10 +254,7 @@ const rowsOf = async (path) => {
   if (n === 0 || res.more) throw new Error(`${path}: ${n} rows, more ${res.more}`);
   return n;
 };
-console.log(
-  `full pull: ${full} rows in ${pages} pages in ${fullSeconds.toFixed(1)} s (one phone, first sign-in); ` +
-    `${kB(fullWire)} on the wire as brotli, ${kB(fullPlain)} plain (${((100 * fullWire) / fullPlain).toFixed(0)} %)`,
-);
+
 console.log(
   `pull:      ${await rowsOf(pullPath)} rows since a few minutes ago (what a phone pulls every few minutes); ` +
     `pull-day: ${await rowsOf(dayPullPath)} rows since last night`,

@@ -1,4 +1,5 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { PULL_PAGE_ROWS } from '@panelpass/shared';
 import { createApiClient } from '../api/client';
 import { NetworkError } from '../api/errors';
 import { createSessionStore } from '../features/auth/model/sessionStore';
@@ -232,6 +233,8 @@ describe('SyncEngine', () => {
     expect(await engine.syncNow()).toBe(true);
     // 4 customers and a vehicle, 2 rows a page.
     expect(server.calls).toEqual(['pull 0', 'pull 2', 'pull 4']);
+    // Each page asks for the app's page size.
+    expect(server.pullLimits).toEqual([PULL_PAGE_ROWS, PULL_PAGE_ROWS, PULL_PAGE_ROWS]);
     expect(await db.rows('customers').count()).toBe(4);
     expect(await db.rows('vehicles').count()).toBe(1);
     expect(await db.getMeta('cursor')).toBe(5);

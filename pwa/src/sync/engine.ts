@@ -1,4 +1,4 @@
-import { blobsReferenced, type Mutation } from '@panelpass/shared';
+import { blobsReferenced, PULL_PAGE_ROWS, type Mutation } from '@panelpass/shared';
 import { isApiError, isNetworkError } from '../api/errors';
 import { isQuotaError, OUT_OF_SPACE_MESSAGE } from '../db/errors';
 import type { LocalDb, OutboxEntry } from '../db/localDb';
@@ -316,7 +316,13 @@ export class SyncEngine {
     let more = false;
     for (let page = 0; page < this.opts.maxPullPages; page++) {
       sentAt = this.db.now();
-      const response = await this.transport.pull({ cursor, scope, clientId });
+      // Pages of 2,500 rows a table: a year's first pull is about 30 round trips, not 90.
+      const response = await this.transport.pull({
+        cursor,
+        scope,
+        clientId,
+        limit: PULL_PAGE_ROWS,
+      });
       receivedAt = this.db.now();
       pulled = mergePage(pulled, response);
       cursor = response.cursor;

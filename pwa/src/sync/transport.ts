@@ -48,12 +48,13 @@ export function createHttpTransport({
 
   return {
     push: (body) => api.request<PushResponse>('/api/sync/push', { method: 'POST', body }),
-    pull: ({ cursor, scope, clientId }) =>
+    pull: ({ cursor, scope, clientId, limit }) =>
       api.request<PullResponse>(
         `/api/sync/pull?${new URLSearchParams({
           cursor: String(cursor),
           scope: String(scope),
           clientId,
+          ...(limit === undefined ? {} : { limit: String(limit) }),
         }).toString()}`,
       ),
     async putBlob(sha256, data, mime) {

@@ -42,6 +42,8 @@ export class FakeSyncServer {
   private version = 0;
   private readonly faults: Record<Route, Fault[]> = { push: [], pull: [], blob: [] };
   pageSize = 500;
+  /** The `limit` each pull asked for (null: none), in order. */
+  readonly pullLimits: (number | null)[] = [];
   now = () => Date.parse('2025-05-02T08:00:00.000Z');
   /** Refuse some mutations the way the real server would (a rule the phone does not know). */
   refuse: (m: Mutation) => { code: string; message: string } | null = () => null;
@@ -162,7 +164,7 @@ export class FakeSyncServer {
       }
     }
     newer.sort((a, b) => a.row.version - b.row.version);
-    const page = newer.slice(0, this.pageSize);
+    const page = newer.slice(0, Math.min(this.pageSize, query.limit ?? Infinity));
     const changes: PullResponse['changes'] = {};
     for (const { table, row } of page) (changes[table] ??= []).push(row);
     return {
@@ -206,13 +208,16 @@ export class FakeSyncServer {
       response = json(200, await this.push(body));
     } else if (route === 'pull') {
       const cursor = Number(url.searchParams.get('cursor'));
+      const limit = url.searchParams.get('limit');
       this.calls.push(`pull ${cursor}`);
+      this.pullLimits.push(limit === null ? null : Number(limit));
       response = json(
         200,
         this.pull({
           cursor,
           scope: Number(url.searchParams.get('scope')),
           clientId: url.searchParams.get('clientId') ?? '',
+          ...(limit === null ? {} : { limit: Number(limit) }),
         }),
       );
     } else {

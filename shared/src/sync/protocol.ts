@@ -96,7 +96,12 @@ export interface PullQuery {
   /** The `scope` of the last pull (0 at first). */
   scope: number;
   clientId: string;
+  /** Rows per table in one page, 1–5000 (the server's default, 1000, when left out). */
+  limit?: number;
 }
+
+/** Rows per table the app asks for in one pull page. */
+export const PULL_PAGE_ROWS = 2500;
 
 /** A rejected mutation as the device keeps it, to show the user and let them resolve it. */
 export interface RejectedMutation extends Mutation {
