@@ -192,4 +192,46 @@ describe('mergePage', () => {
     expect(merged.cursor).toBe(9);
     expect(merged.changes.customers?.map((r) => r.name)).toEqual(['B']);
   });
+
+  const pageOf = (cursor: number, rows: { id: string; version: number }[], reset = false) =>
+    ({
+      cursor,
+      lastMutationId: 0,
+      changes: {
+        customers: rows.map(({ id, version }) => ({
+          ...customer,
+          id,
+          version,
+          name: `${id}@${version}`,
+        })),
+      },
+      more: true,
+      serverTime: T0,
+      reset,
+      scope: 0,
+    }) satisfies PullResponse;
+
+  it('over many pages keeps one copy per row, in first-seen order, never an older one', () => {
+    let merged: PulledChanges | null = null;
+    for (let p = 0; p < 50; p++) {
+      // Each page brings 20 new rows and a newer copy of row p; the last one an older copy.
+      const rows = Array.from({ length: 20 }, (_, i) => ({ id: `r${p * 20 + i}`, version: 1 }));
+      rows.push({ id: `r${p}`, version: p + 2 });
+      if (p === 49) rows.push({ id: 'r0', version: 1 });
+      merged = mergePage(merged, pageOf(p + 1, rows));
+    }
+    const names = merged!.changes.customers!.map((r) => String(r.name));
+    expect(names).toHaveLength(1000);
+    expect(new Set(names.map((n) => n.split('@')[0])).size).toBe(1000);
+    expect(names.slice(0, 3)).toEqual(['r0@2', 'r1@3', 'r2@4']);
+    expect(names[999]).toBe('r999@1');
+  });
+
+  it('a reset page drops what came before it', () => {
+    const before = mergePage(null, pageOf(4, [{ id: 'a', version: 3 }]));
+    const after = mergePage(before, pageOf(2, [{ id: 'b', version: 1 }], true));
+    const next = mergePage(after, pageOf(6, [{ id: 'a', version: 1 }]));
+    expect(next.reset).toBe(true);
+    expect(next.changes.customers!.map((r) => r.name)).toEqual(['b@1', 'a@1']);
+  });
 });

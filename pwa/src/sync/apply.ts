@@ -23,7 +23,13 @@ export interface PulledChanges {
   scope: number;
 }
 
-/** Adds a page to what was pulled so far (a later version of a row replaces an earlier one). */
+/** Where each row of a merge sits in its table's list, by id (kept beside the merge). */
+const positions = new WeakMap<PulledChanges, Map<SyncTable, Map<string, number>>>();
+
+/**
+ * Adds a page to what was pulled so far (a later version of a row replaces an earlier one).
+ * Linear in the page: a first pull of a year is a couple of hundred pages.
+ */
 export function mergePage(into: PulledChanges | null, page: PullResponse): PulledChanges {
   // A reset starts again from nothing: what came before it no longer counts.
   const merged: PulledChanges =
@@ -41,15 +47,21 @@ export function mergePage(into: PulledChanges | null, page: PullResponse): Pulle
   merged.cursor = Math.max(merged.cursor, page.cursor);
   merged.lastMutationId = Math.max(merged.lastMutationId, page.lastMutationId);
   merged.serverTime = Math.max(merged.serverTime, page.serverTime);
+  let tables = positions.get(merged);
+  if (!tables) positions.set(merged, (tables = new Map<SyncTable, Map<string, number>>()));
   for (const table of SYNC_TABLES) {
     const rows = page.changes[table];
     if (!rows?.length) continue;
-    const byId = new Map((merged.changes[table] ?? []).map((r) => [r.id, r]));
+    const list = (merged.changes[table] ??= []);
+    let at = tables.get(table);
+    if (!at) tables.set(table, (at = new Map(list.map((r, i) => [r.id, i]))));
     for (const row of rows) {
-      const had = byId.get(row.id);
-      if (!had || had.version <= row.version) byId.set(row.id, row);
+      const i = at.get(row.id);
+      if (i === undefined) {
+        at.set(row.id, list.length);
+        list.push(row);
+      } else if (list[i]!.version <= row.version) list[i] = row;
     }
-    merged.changes[table] = [...byId.values()];
   }
   return merged;
 }
@@ -133,7 +145,10 @@ export async function applyPull(
       const rows = pulled.changes[table];
       if (!rows?.length) continue;
       const store = db.table<SyncRow, string>(table);
-      const held = await store.bulkGet(rows.map((r) => r.id));
+      // A fresh phone's first pull, or a reset (cleared above), has nothing to compare with:
+      // one count instead of a read per row (10,000 reads cost about a third of applying).
+      const held: (SyncRow | undefined)[] =
+        (await store.count()) === 0 ? [] : await store.bulkGet(rows.map((r) => r.id));
       const live: SyncRow[] = [];
       const gone: string[] = [];
       rows.forEach((row, i) => {
