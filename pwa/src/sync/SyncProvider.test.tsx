@@ -3,7 +3,8 @@ import 'fake-indexeddb/auto';
 import { act, cleanup, render, screen, waitFor } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { sessionStore } from '../app/services';
-import { aSession } from '../test/sessions';
+import { LocalDb } from '../db/localDb';
+import { aSession, aUser } from '../test/sessions';
 import { useSync, useSyncActions } from './context';
 
 /** The engine's code arrives only when the test lets it (a slow phone loading its chunk). */
@@ -13,7 +14,8 @@ const engineCode = vi.hoisted(() => {
     release = resolve;
   });
   const syncNow = vi.fn(() => Promise.resolve(true));
-  return { gate, release: () => release(), syncNow };
+  const start = vi.fn();
+  return { gate, release: () => release(), syncNow, start };
 });
 
 vi.mock('./engine', async () => {
@@ -29,7 +31,7 @@ vi.mock('./engine', async () => {
   class SyncEngine {
     getState = () => running;
     subscribe = () => () => undefined;
-    start() {}
+    start = engineCode.start;
     stop() {
       return Promise.resolve();
     }
@@ -102,5 +104,59 @@ describe('SyncProvider', () => {
     // One render with the database, none for the status.
     expect(seen).toHaveLength(1);
     expect((seen[0] as { db: unknown }).db).toBe(lastValue?.db);
+  });
+
+  describe('when the first sync starts', () => {
+    // The browser's idle moment comes only when the test says so.
+    let idleWork: (() => void) | null = null;
+    afterEach(() => {
+      cleanup();
+      idleWork = null;
+      Reflect.deleteProperty(window, 'requestIdleCallback');
+      Reflect.deleteProperty(window, 'cancelIdleCallback');
+    });
+    const stubIdle = () => {
+      Object.assign(window, {
+        requestIdleCallback: (work: () => void) => {
+          idleWork = work;
+          return 1;
+        },
+        cancelIdleCallback: () => undefined,
+      });
+    };
+
+    it('a phone that has never synced starts at once, without waiting for the browser to be idle', async () => {
+      stubIdle();
+      engineCode.start.mockClear();
+      sessionStore.set(aSession({ user: aUser({ id: 'u-new-phone' }) }));
+      render(
+        <SyncProvider>
+          <Probe />
+        </SyncProvider>,
+      );
+      await waitFor(() => expect(engineCode.start).toHaveBeenCalledTimes(1));
+      expect(idleWork).not.toBeNull();
+    });
+
+    it('a phone holding synced work lets the first screen settle first', async () => {
+      const user = aUser({ id: 'u-synced-phone' });
+      const held = new LocalDb({ userId: user.id, businessId: user.businessId, role: user.role });
+      await held.setMeta('lastSyncAt', 1_700_000_000_000);
+      held.close();
+      stubIdle();
+      engineCode.start.mockClear();
+      sessionStore.set(aSession({ user }));
+      render(
+        <SyncProvider>
+          <Probe />
+        </SyncProvider>,
+      );
+      expect(await screen.findByText('database ready · idle')).toBeTruthy();
+      // The database has answered (the screen reads it) and still no engine.
+      await new Promise((resolve) => setTimeout(resolve, 50));
+      expect(engineCode.start).not.toHaveBeenCalled();
+      act(() => idleWork?.());
+      await waitFor(() => expect(engineCode.start).toHaveBeenCalledTimes(1));
+    });
   });
 });
