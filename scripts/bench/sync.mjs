@@ -7,6 +7,7 @@
 // paths on the first requests; a server in service has long done so).
 import { randomUUID } from 'node:crypto';
 import { performance } from 'node:perf_hooks';
+import shared from '@panelpass/shared';
 import pg from 'pg';
 
 const url = process.env.BENCH_URL;
@@ -165,9 +166,11 @@ let cursor = 0;
 let pulled = 0;
 let pages = 0;
 for (;;) {
-  const res = await api(`/api/sync/pull?cursor=${cursor}&scope=0&clientId=${randomUUID()}`, {
-    token: puller.accessToken,
-  });
+  // In pages of the app's size.
+  const res = await api(
+    `/api/sync/pull?cursor=${cursor}&scope=0&clientId=${randomUUID()}&limit=${shared.PULL_PAGE_ROWS}`,
+    { token: puller.accessToken },
+  );
   for (const list of Object.values(res.changes)) pulled += list.length;
   cursor = res.cursor;
   pages++;
