@@ -303,6 +303,8 @@ async function measure() {
               'loading',
               'ServiceWorker',
               'IndexedDB',
+              // JavaScript samples (ProfileChunk events), to see what each long task runs.
+              'disabled-by-default-v8.cpu_profiler',
             ],
           },
         });
