@@ -7,7 +7,7 @@ import {
   type SyncRowTypes,
   type SyncTable,
 } from '@panelpass/shared';
-import { SCHEMA_VERSIONS, type SchemaVersion } from './schema';
+import { SCHEMA_VERSIONS, type SchemaVersion, type StoreSpec } from './schema';
 import { localDbName } from './localDbName';
 
 /** A recorded mutation waiting for the server; `at` is when it was made, on the server's clock. */
@@ -61,8 +61,11 @@ export interface MetaValues {
   scope: number;
 }
 
-/** Values of keys added after a database was first made (meta is key/value: no migration). */
-const META_DEFAULTS: Partial<MetaValues> = {
+/**
+ * What a new database starts with, besides who it belongs to; also the value of a key added
+ * after a database was first made (meta is key/value: no migration).
+ */
+const META_DEFAULTS: Omit<MetaValues, 'clientId' | 'userId' | 'businessId'> = {
   cursor: 0,
   lastMutationId: 0,
   nextMutationId: 1,
@@ -102,12 +105,22 @@ export interface LocalDbOptions {
 
 export { localDbName };
 
-/** Declares the versions on a Dexie instance, in order. */
+/**
+ * Declares the schema on a Dexie instance: the latest version with every version's stores
+ * merged, and before it only the versions that rewrite rows (an `upgrade`). Dexie (3 and later)
+ * reads the installed schema from the database itself and adds or drops stores and indexes to
+ * match, so a phone on any older version still upgrades; declaring each version made Dexie
+ * parse the whole schema once per version on every start (about 5 ms of the first screen's
+ * longest task, unthrottled).
+ */
 export function declareSchema(db: Dexie, versions: readonly SchemaVersion[]): void {
+  let stores: StoreSpec = {};
   for (const v of versions) {
-    const version = db.version(v.version).stores(v.stores);
-    if (v.upgrade) version.upgrade(v.upgrade);
+    stores = { ...stores, ...v.stores };
+    if (v.upgrade) db.version(v.version).stores(stores).upgrade(v.upgrade);
   }
+  // Versions are numbered 1, 2, 3… (schema.test.ts): the last is the list's length.
+  db.version(versions.length).stores(stores);
 }
 
 /** The phone's working copy of one user's business data, its outbox and sync state. */
@@ -129,23 +142,14 @@ export class LocalDb extends Dexie {
     });
     this.owner = owner;
     this.now = options.now ?? (() => Date.now());
-    const upTo = options.upToVersion ?? Infinity;
-    declareSchema(
-      this,
-      SCHEMA_VERSIONS.filter((v) => v.version <= upTo),
-    );
+    // Versions are numbered 1, 2, 3…: the first `upToVersion` of them (all when not given).
+    declareSchema(this, SCHEMA_VERSIONS.slice(0, options.upToVersion));
     this.on('populate', (tx) => {
       const initial: MetaValues = {
+        ...META_DEFAULTS,
         clientId: crypto.randomUUID(),
         userId: owner.userId,
         businessId: owner.businessId,
-        cursor: 0,
-        lastMutationId: 0,
-        nextMutationId: 1,
-        lastSyncAt: null,
-        serverOffsetMs: 0,
-        persistAsked: false,
-        scope: 0,
       };
       const entries = Object.entries(initial).map(([key, value]): MetaEntry => ({
         key: key as MetaKey,
@@ -183,7 +187,7 @@ export class LocalDb extends Dexie {
   async getMeta<K extends MetaKey>(key: K): Promise<MetaValues[K]> {
     const entry = await this.meta.get(key);
     if (entry) return entry.value as MetaValues[K];
-    if (key in META_DEFAULTS) return META_DEFAULTS[key] as MetaValues[K];
+    if (key in META_DEFAULTS) return (META_DEFAULTS as Partial<MetaValues>)[key] as MetaValues[K];
     throw new Error(`The local database has no ${key}`);
   }
 

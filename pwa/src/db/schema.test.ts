@@ -1,8 +1,10 @@
+import Dexie from 'dexie';
+import { IDBKeyRange } from 'fake-indexeddb';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { SYNC_TABLES } from '@panelpass/shared';
 import { aCustomerRow, freshIndexedDb, openTestDb } from '../test/localDb';
-import type { LocalDb } from './localDb';
-import { SCHEMA_VERSIONS } from './schema';
+import { declareSchema, type LocalDb } from './localDb';
+import { SCHEMA_VERSIONS, type SchemaVersion } from './schema';
 
 const opened: LocalDb[] = [];
 function track(db: LocalDb): LocalDb {
@@ -117,5 +119,74 @@ describe('Dexie schema', () => {
     expect(onVersionChange).toHaveBeenCalledTimes(1);
     expect(old.isOpen()).toBe(false);
     expect(newer.verno).toBe(SCHEMA_VERSIONS.length);
+  });
+
+  describe('declareSchema', () => {
+    // A schema's history as the list keeps it: v2 rewrites rows, v3 and v4 only add indexes.
+    const history: SchemaVersion[] = [
+      { version: 1, stores: { notes: 'id', meta: 'key' } },
+      {
+        version: 2,
+        stores: { notes: 'id, title' },
+        upgrade: async (tx) => {
+          await tx
+            .table('notes')
+            .toCollection()
+            .modify((n: { text?: string; title?: string }) => {
+              n.title = n.text?.split(' ')[0];
+            });
+        },
+      },
+      { version: 3, stores: { notes: 'id, title, pinned' } },
+      { version: 4, stores: { tags: 'id' } },
+    ];
+    const dexieOn = (factory: IDBFactory, versions: SchemaVersion[]) => {
+      const db = new Dexie('schema-test', { indexedDB: factory, IDBKeyRange });
+      declareSchema(db, versions);
+      return db;
+    };
+
+    it('declares the merged latest schema and, before it, only the versions that rewrite rows', () => {
+      const declared: { version: number; stores: unknown; upgrade: boolean }[] = [];
+      const recorder = {
+        version: (version: number) => ({
+          stores: (stores: unknown) => {
+            const entry = { version, stores, upgrade: false };
+            declared.push(entry);
+            return {
+              upgrade: () => {
+                entry.upgrade = true;
+              },
+            };
+          },
+        }),
+      } as unknown as Dexie;
+      declareSchema(recorder, history);
+      expect(declared).toEqual([
+        { version: 2, stores: { notes: 'id, title', meta: 'key' }, upgrade: true },
+        {
+          version: 4,
+          stores: { notes: 'id, title, pinned', meta: 'key', tags: 'id' },
+          upgrade: false,
+        },
+      ]);
+    });
+
+    it('upgrades a database from its first version: rows rewritten, later indexes and stores there', async () => {
+      const factory = freshIndexedDb();
+      const first = dexieOn(factory, history.slice(0, 1));
+      await first.table('notes').put({ id: 'n1', text: 'Bonnet swirls', pinned: 'yes' });
+      first.close();
+
+      const latest = dexieOn(factory, history);
+      await latest.open();
+      expect(latest.verno).toBe(4);
+      expect(await latest.table('notes').where('title').equals('Bonnet').primaryKeys()).toEqual([
+        'n1',
+      ]);
+      expect(await latest.table('notes').where('pinned').equals('yes').count()).toBe(1);
+      await latest.table('tags').put({ id: 't1' });
+      latest.close();
+    });
   });
 });
