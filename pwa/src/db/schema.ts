@@ -4,7 +4,10 @@ import type { Transaction } from 'dexie';
 /**
  * The Dexie schema, one entry per version. APPEND-ONLY: a shipped version runs on phones
  * that hold the only copy of a day's work, so it is never edited or removed — a change is a
- * new version below (schema.test.ts keeps version 1 as shipped).
+ * new version below (schema.test.ts keeps version 1 as shipped), numbered 1, 2, 3… Each
+ * entry lists only the stores it adds or changes (null drops one). Dexie is given the stores
+ * merged up to the latest version, plus each version with an `upgrade` (localDb.ts,
+ * `declareSchema`).
  *
  * Primary key first, then the indexes the screens read by. Booleans cannot be indexed in
  * IndexedDB, so states are strings.
