@@ -89,7 +89,10 @@ export function SyncProvider({ children }: { children: ReactNode }) {
       // A phone that has never synced has nothing to show until its first sync is in: that
       // one starts as soon as the database answers, not once the first screen has settled
       // (the first pull leaves about 70 ms sooner after signing in on a new phone).
-      db.getMeta('lastSyncAt').then((at) => at ?? resolve(), () => 0);
+      db.getMeta('lastSyncAt').then(
+        (at) => at ?? resolve(),
+        () => 0,
+      );
     });
     const started: Promise<SyncEngine | null> = idle.then(loadEngine).then(
       ({ SyncEngine, createHttpTransport }) => {
