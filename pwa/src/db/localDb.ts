@@ -110,7 +110,7 @@ export { localDbName };
  * merged, and before it only the versions that rewrite rows (an `upgrade`). Dexie (3 and later)
  * reads the installed schema from the database itself and adds or drops stores and indexes to
  * match, so a phone on any older version still upgrades; declaring each version made Dexie
- * parse the whole schema once per version on every start (about 5 ms of the first screen's
+ * parse the whole schema once per version on every start (about 6 ms of the first screen's
  * longest task, unthrottled).
  */
 export function declareSchema(db: Dexie, versions: readonly SchemaVersion[]): void {
