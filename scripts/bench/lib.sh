@@ -18,7 +18,9 @@ trap bench_cleanup EXIT
 # bench_server PORT: migrates the throwaway database and starts the built server on PORT.
 # PANELPASS_SERVER_DIST: another built server folder (default server/dist, built when missing);
 # PANELPASS_BENCH_NO_INSTALL=1 skips the npm package check. PANELPASS_BENCH_SEED=1 loads the demo
-# data first; PANELPASS_BENCH_PWA_DIST=<folder> also serves that built app at / (PWA_DIST).
+# data first; PANELPASS_BENCH_PWA_DIST=<folder> also serves that built app at / (PWA_DIST);
+# PANELPASS_BENCH_SERVER_NODE_ARGS gives the server's node extra flags (e.g. "--cpu-prof
+# --cpu-prof-dir=/tmp/prof": the profile is written when the benchmark stops the server).
 bench_server() {
   local port=$1 dist=${PANELPASS_SERVER_DIST:-server/dist}
   local log=/tmp/panelpass-bench-server-$port.log
@@ -34,7 +36,7 @@ bench_server() {
   export JWT_SECRET=bench-secret-bench-secret-bench-secret-1
   [ -z "${PANELPASS_BENCH_SEED:-}" ] || node "$dist/database/seeds/run-seed.js" >/dev/null
   env ${PANELPASS_BENCH_PWA_DIST:+PWA_DIST=$PANELPASS_BENCH_PWA_DIST} ${FOLLOW_UPS:+FOLLOW_UPS=$FOLLOW_UPS} \
-    NODE_ENV=production HOST=127.0.0.1 PORT=$port SIGN_IN_LIMIT=100000 node "$dist/main.js" >"$log" 2>&1 &
+    NODE_ENV=production HOST=127.0.0.1 PORT=$port SIGN_IN_LIMIT=100000 node ${PANELPASS_BENCH_SERVER_NODE_ARGS:-} "$dist/main.js" >"$log" 2>&1 &
   BENCH_SERVER_PID=$!
   export BENCH_SERVER_PID
   wait_for_http "http://127.0.0.1:$port/api/health" 60 || { cat "$log"; exit 1; }
