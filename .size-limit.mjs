@@ -20,7 +20,12 @@
 // Today 898 -> 545 ms, sign-in 298 -> 143 ms)), and once by 0.1 kB (≈241.07 kB) for loading the
 // first screen's code before the first render (src/App.tsx preloadFirstScreen, lazyPage's
 // preload): a suspended first screen was revealed 250-300 ms late, and an offline start showed
-// Today about 300 ms sooner without it. It stops the bundle from growing while the rest
+// Today about 300 ms sooner without it, and once by 0.2 kB (≈241.28 kB) for rendering the signed-in
+// shell once at startup (src/App.tsx: React Router's Routes at the top, tabs routed without a
+// splat where they have no pages under them; sync/SyncProvider.tsx: one tree with or without the
+// database, which is opened before the first render): Lighthouse TBT on Today 533 -> 232 ms and
+// 304 -> 260 ms, performance 0.87 -> 0.96 and 0.93 -> 0.95 (medians of 5, two rounds side by
+// side). It stops the bundle from growing while the rest
 // of the way to 200 kB is worked on. Lower it with every step down; never raise it without
 // saying why in the commit.
 import { join, relative } from 'node:path';
@@ -35,6 +40,6 @@ export default [
     name: `sign-in + Today JavaScript, gzipped (goal ${firstScreensGoalKb} kB)`,
     path: firstScreenFiles(dist).map((file) => relative(root, join(dist, file))),
     gzip: true,
-    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '241.1 kB',
+    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '241.3 kB',
   },
 ];

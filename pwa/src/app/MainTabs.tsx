@@ -13,6 +13,7 @@ import { useCurrentUser } from '../features/auth/hooks/useCurrentUser';
 import type { Role } from '../features/auth/model/session';
 import {
   settingsPath,
+  tabRoutePath,
   tabs,
   tabsForRole,
   within,
@@ -20,6 +21,8 @@ import {
 } from '../features/shell/model/access';
 import { TimerDock } from '../features/timers/components/TimerDock';
 import { SyncProvider } from '../sync/SyncProvider';
+
+export { openLocalDbEarly } from '../sync/SyncProvider';
 import { lazyPage } from './lazyPage';
 import { queryClient } from './queryClient';
 import { Icon } from '../components/Icon';
@@ -93,11 +96,11 @@ function SignedInTabs() {
       <IonRouterOutlet>
         {visible.map((tab) => {
           const Page = pages[tab.id];
-          return <Route key={tab.id} path={`${tab.path}/*`} element={<Page />} />;
+          return <Route key={tab.id} path={tabRoutePath(tab)} element={<Page />} />;
         })}
         {/* No route rather than a null child: Ionic's outlet reads each child's type, and a
             session ending on Settings (sign-out, the business deleted) would crash it. */}
-        {user ? <Route path={`${settingsPath}/*`} element={<SettingsPage />} /> : []}
+        {user ? <Route path={settingsPath} element={<SettingsPage />} /> : []}
       </IonRouterOutlet>
       {/* Alarms and the timer strip, above the tab bar (ion-tabs' bottom slot). */}
       {user ? <TimerDock slot="bottom" /> : null}

@@ -1,6 +1,7 @@
 // Live queries and the phone's database need a global indexedDB: give the test one first.
 import 'fake-indexeddb/auto';
 import { act, cleanup, render, screen, waitFor } from '@testing-library/react';
+import { useEffect } from 'react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { sessionStore } from '../app/services';
 import { LocalDb } from '../db/localDb';
@@ -40,7 +41,7 @@ vi.mock('./engine', async () => {
   return { SyncEngine };
 });
 
-const { SyncProvider } = await import('./SyncProvider');
+const { SyncProvider, openLocalDbEarly } = await import('./SyncProvider');
 
 afterEach(() => {
   cleanup();
@@ -104,6 +105,64 @@ describe('SyncProvider', () => {
     // One render with the database, none for the status.
     expect(seen).toHaveLength(1);
     expect((seen[0] as { db: unknown }).db).toBe(lastValue?.db);
+  });
+
+  it('mounts the screens once: the database arriving does not mount them again', async () => {
+    sessionStore.set(aSession());
+    let mounts = 0;
+    function Screen() {
+      useEffect(() => {
+        mounts += 1;
+      }, []);
+      return <Probe />;
+    }
+    render(
+      <SyncProvider>
+        <Screen />
+      </SyncProvider>,
+    );
+    expect(await screen.findByText(/^database ready/)).toBeTruthy();
+    await waitFor(() => expect(screen.getByText('database ready · syncing')).toBeTruthy());
+    // The whole shell sits under the provider: mounting it again would build every page and
+    // custom element twice at each start.
+    expect(mounts).toBe(1);
+  });
+
+  describe('a database opened before the first render', () => {
+    it('is the one the screens get', async () => {
+      sessionStore.set(aSession({ user: aUser({ id: 'u-early' }) }));
+      const early = openLocalDbEarly();
+      expect(early).not.toBeNull();
+      render(
+        <SyncProvider>
+          <Probe />
+        </SyncProvider>,
+      );
+      expect(await screen.findByText(/^database ready/)).toBeTruthy();
+      expect(lastValue?.db).toBe(early);
+    });
+
+    it('is closed, and another opened, when someone else is signed in by then', async () => {
+      sessionStore.set(aSession({ user: aUser({ id: 'u-before' }) }));
+      const early = openLocalDbEarly();
+      sessionStore.set(aSession({ user: aUser({ id: 'u-after' }) }));
+      render(
+        <SyncProvider>
+          <Probe />
+        </SyncProvider>,
+      );
+      expect(await screen.findByText(/^database ready/)).toBeTruthy();
+      expect(lastValue?.db).not.toBe(early);
+      expect(lastValue?.db.owner.userId).toBe('u-after');
+      expect(early?.isOpen()).toBe(false);
+    });
+
+    it('is not opened for a customer or without a session', () => {
+      sessionStore.set(null);
+      expect(openLocalDbEarly()).toBeNull();
+      sessionStore.set(aSession({ user: aUser({ id: 'u-customer', role: 'customer' }) }));
+      expect(openLocalDbEarly()).toBeNull();
+    });
   });
 
   describe('when the first sync starts', () => {

@@ -61,6 +61,35 @@ async function askForPersistentStorageOnce(db: LocalDb): Promise<void> {
   }
 }
 
+/** The database opened before the first render (`openLocalDbEarly`), until the provider takes it. */
+let early: LocalDb | null = null;
+
+/**
+ * Starts opening the signed-in person's database before the first render (boot.tsx, through
+ * App's preloadFirstScreen), so it opens while the shell renders: the provider's effect only
+ * runs after the shell's first commit, and opening it there put it behind all of that work.
+ */
+export function openLocalDbEarly(): LocalDb | null {
+  const user = sessionStore.get()?.user;
+  if (early || !user || user.role === 'customer') return early;
+  early = new LocalDb({ userId: user.id, businessId: user.businessId, role: user.role });
+  early.open().catch(() => undefined);
+  return early;
+}
+
+/** The database opened early when it is this person's, else a new one. */
+function takeLocalDb(owner: DbOwner): LocalDb {
+  const db = early;
+  early = null;
+  const same =
+    db?.owner.userId === owner.userId &&
+    db.owner.businessId === owner.businessId &&
+    db.owner.role === owner.role;
+  if (same) return db;
+  db?.close();
+  return new LocalDb(owner);
+}
+
 /**
  * The signed-in shell's sync: opens this person's database on the phone, starts the engine,
  * and stops it at sign-out (or when the session ends). Screens below read the status and
@@ -80,7 +109,7 @@ export function SyncProvider({ children }: { children: ReactNode }) {
 
   useEffect(() => {
     if (!userId || !businessId || !role) return;
-    const db = new LocalDb({ userId, businessId, role });
+    const db = takeLocalDb({ userId, businessId, role });
     let ended = false;
     let engine: SyncEngine | null = null;
     let cancelIdle = () => undefined as void;
@@ -118,13 +147,8 @@ export function SyncProvider({ children }: { children: ReactNode }) {
     };
   }, [userId, businessId, role]);
 
-  if (!runtime) {
-    return (
-      <SyncActionsContext.Provider value={null}>
-        <SyncContext.Provider value={null}>{children}</SyncContext.Provider>
-      </SyncActionsContext.Provider>
-    );
-  }
+  // One tree whether or not the database is there yet: a different element here when it
+  // arrives would mount the whole shell below (every page and custom element) a second time.
   return (
     <LiveSync runtime={runtime} onForget={forget}>
       {children}
@@ -137,39 +161,43 @@ function LiveSync({
   onForget,
   children,
 }: {
-  runtime: Runtime;
+  runtime: Runtime | null;
   onForget: () => void;
   children: ReactNode;
 }) {
-  const { db, engine, started } = runtime;
+  const db = runtime?.db ?? null;
+  const started = runtime?.started ?? null;
   // The stand-in is only read (subscribe, getState) by the status hook.
-  const status = useLiveSyncStatus(db, engine ?? (notStarted as SyncEngine));
+  const status = useLiveSyncStatus(db, runtime?.engine ?? (notStarted as SyncEngine));
   const actions = useMemo(
-    (): SyncActions => ({
-      db,
-      mutate: async (name, args) => (await loadMutate())(db, name, args),
-      syncNow: async () => (await started)?.syncNow() ?? false,
-      async retryRejected(id) {
-        const rejected = await db.rejected.get(id);
-        if (!rejected) return;
-        await (
-          await loadMutate()
-        )(db, rejected.name as CommandName, rejected.args as never);
-        await db.rejected.delete(id);
-      },
-      async discardRejected(id) {
-        await db.rejected.delete(id);
-      },
-      async forgetThisPhone() {
-        // Let go of the live queries first: they would fail on a deleted database.
-        onForget();
-        await (await started)?.stop();
-        await db.delete();
-      },
-    }),
+    (): SyncActions | null =>
+      db && started
+        ? {
+            db,
+            mutate: async (name, args) => (await loadMutate())(db, name, args),
+            syncNow: async () => (await started)?.syncNow() ?? false,
+            async retryRejected(id) {
+              const rejected = await db.rejected.get(id);
+              if (!rejected) return;
+              await (
+                await loadMutate()
+              )(db, rejected.name as CommandName, rejected.args as never);
+              await db.rejected.delete(id);
+            },
+            async discardRejected(id) {
+              await db.rejected.delete(id);
+            },
+            async forgetThisPhone() {
+              // Let go of the live queries first: they would fail on a deleted database.
+              onForget();
+              await (await started)?.stop();
+              await db.delete();
+            },
+          }
+        : null,
     [db, started, onForget],
   );
-  const value = useMemo(() => ({ ...actions, status }), [actions, status]);
+  const value = useMemo(() => (actions ? { ...actions, status } : null), [actions, status]);
   // Two contexts: the status moves at every sync, the database and the actions do not.
   return (
     <SyncActionsContext.Provider value={actions}>

@@ -18,16 +18,18 @@ const isOnline = () => navigator.onLine;
 /**
  * The sync state, live: counts and rejections from Dexie (useLiveQuery re-runs when the
  * outbox, the rejected list, the images or meta change — in this tab or another), online
- * from the browser, syncing and the last error from the engine.
+ * from the browser, syncing and the last error from the engine. Without a database yet (the
+ * moment before it is opened), nothing is counted.
  */
-export function useLiveSyncStatus(db: LocalDb, engine: SyncEngine): SyncStatusView {
+export function useLiveSyncStatus(db: LocalDb | null, engine: SyncEngine): SyncStatusView {
   const stored = useLiveQuery(
-    async () => ({
-      pending: await db.outbox.count(),
-      waitingImages: await db.blobs.where('state').equals('pending').count(),
-      rejected: await db.rejected.orderBy('id').toArray(),
-      lastSyncAt: await db.getMeta('lastSyncAt'),
-    }),
+    async () =>
+      db && {
+        pending: await db.outbox.count(),
+        waitingImages: await db.blobs.where('state').equals('pending').count(),
+        rejected: await db.rejected.orderBy('id').toArray(),
+        lastSyncAt: await db.getMeta('lastSyncAt'),
+      },
     [db],
   );
   const online = useSyncExternalStore(subscribeOnline, isOnline);

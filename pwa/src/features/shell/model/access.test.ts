@@ -1,6 +1,6 @@
 // @vitest-environment node
 import { describe, expect, it } from 'vitest';
-import { redirectFor, tabsForRole } from './access';
+import { redirectFor, tabRoutePath, tabs, tabsForRole } from './access';
 
 describe('tabs per role', () => {
   it('an owner sees all five tabs in order', () => {
@@ -48,6 +48,25 @@ describe('where a screen sends you', () => {
 
   it('keeps deeper pages of a visible tab', () => {
     expect(redirectFor('/jobs/42', 'tech')).toBeNull();
+  });
+
+  it('sends a path under a screen with no pages under it home (nothing would show there)', () => {
+    expect(redirectFor('/today/anything', 'owner')).toBe('/today');
+    expect(redirectFor('/ledger/2026', 'owner')).toBe('/today');
+    expect(redirectFor('/settings/team', 'tech')).toBe('/today');
+    expect(redirectFor('/today/', 'owner')).toBeNull();
+    expect(redirectFor('/ledger/', 'owner')).toBeNull();
+  });
+
+  it('routes a tab with pages under it by a splat, any other by its path alone', () => {
+    const routes = Object.fromEntries(tabs.map((tab) => [tab.id, tabRoutePath(tab)]));
+    expect(routes).toEqual({
+      today: '/today',
+      jobs: '/jobs/*',
+      clients: '/clients/*',
+      shelf: '/shelf/*',
+      ledger: '/ledger',
+    });
   });
 
   it('opens Settings (not a tab) for the owner and a helper, never for a customer', () => {

@@ -8,6 +8,14 @@ export interface TabDefinition {
   label: string;
   /** Roles that see this tab and may open its pages. */
   roles: readonly Role[];
+  /**
+   * Whether the tab has pages under its path (`/jobs/:id`). A tab without them is routed by its
+   * path alone, not `/today/*`: Ionic's router copies the matched route's params into its state
+   * after the first render, and a splat's `*` param differs from the none it starts with, so a
+   * splat route costs a second render of the whole app at every start (measured: Lighthouse's
+   * Total Blocking Time on Today, docs/benchmarks.md).
+   */
+  subpages?: true;
 }
 
 const staff: readonly Role[] = ['owner', 'tech'];
@@ -15,12 +23,17 @@ const staff: readonly Role[] = ['owner', 'tech'];
 /** The bottom tab bar, left to right. */
 export const tabs: readonly TabDefinition[] = [
   { id: 'today', path: '/today', label: 'Today', roles: staff },
-  { id: 'jobs', path: '/jobs', label: 'Jobs', roles: staff },
-  { id: 'clients', path: '/clients', label: 'Clients', roles: staff },
-  { id: 'shelf', path: '/shelf', label: 'Shelf', roles: staff },
+  { id: 'jobs', path: '/jobs', label: 'Jobs', roles: staff, subpages: true },
+  { id: 'clients', path: '/clients', label: 'Clients', roles: staff, subpages: true },
+  { id: 'shelf', path: '/shelf', label: 'Shelf', roles: staff, subpages: true },
   // Money for the whole business: the owner's alone.
   { id: 'ledger', path: '/ledger', label: 'Ledger', roles: ['owner'] },
 ];
+
+/** The route path of a tab: its pages too when it has some (see `subpages`). */
+export function tabRoutePath(tab: TabDefinition): string {
+  return tab.subpages ? `${tab.path}/*` : tab.path;
+}
 
 export function tabsForRole(role: Role): TabDefinition[] {
   return tabs.filter((tab) => tab.roles.includes(role));
@@ -37,9 +50,12 @@ export function homeFor(role: Role): string {
   return role === 'customer' ? customerHomePath : '/today';
 }
 
-/** Whether `pathname` is `base` or a page under it. */
-export function within(pathname: string, base: string): boolean {
-  return pathname === base || pathname.startsWith(`${base}/`);
+/**
+ * Whether `pathname` is `base` or a page under it; with `exact`, `base` alone (a trailing slash
+ * allowed, as the router allows it).
+ */
+export function within(pathname: string, base: string, exact = false): boolean {
+  return pathname === base || (exact ? pathname === `${base}/` : pathname.startsWith(`${base}/`));
 }
 
 /** An invite link opens for anyone: the person holding it may be signed in as someone else. */
@@ -67,6 +83,7 @@ export function redirectFor(pathname: string, role: Role | null): string | null 
   if (role === 'customer') return within(pathname, customerHomePath) ? null : customerHomePath;
 
   const allowed =
-    within(pathname, settingsPath) || tabsForRole(role).some((tab) => within(pathname, tab.path));
+    within(pathname, settingsPath, true) ||
+    tabsForRole(role).some((tab) => within(pathname, tab.path, !tab.subpages));
   return allowed ? null : homeFor(role);
 }
