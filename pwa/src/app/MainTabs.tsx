@@ -21,11 +21,12 @@ import {
 } from '../features/shell/model/access';
 import { TimerDock } from '../features/timers/components/TimerDock';
 import { SyncProvider } from '../sync/SyncProvider';
-
-export { openLocalDbEarly } from '../sync/SyncProvider';
 import { lazyPage } from './lazyPage';
 import { queryClient } from './queryClient';
 import { Icon } from '../components/Icon';
+
+/** For App's preloadFirstScreen, which loads this chunk before the first render. */
+export { openLocalDbEarly } from '../sync/SyncProvider';
 
 const pages: Record<TabId, ReturnType<typeof lazyPage>> = {
   today: lazyPage(() => import('../pages/TodayPage')),
