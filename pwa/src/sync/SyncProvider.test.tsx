@@ -1,7 +1,7 @@
 // Live queries and the phone's database need a global indexedDB: give the test one first.
 import 'fake-indexeddb/auto';
 import { act, cleanup, render, screen, waitFor } from '@testing-library/react';
-import { useEffect } from 'react';
+import { StrictMode, useEffect } from 'react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { sessionStore } from '../app/services';
 import { LocalDb } from '../db/localDb';
@@ -140,6 +140,46 @@ describe('SyncProvider', () => {
       );
       expect(await screen.findByText(/^database ready/)).toBeTruthy();
       expect(lastValue?.db).toBe(early);
+    });
+
+    it("is in the screens' first render: they do not render again for it", async () => {
+      sessionStore.set(aSession({ user: aUser({ id: 'u-first-render' }) }));
+      const early = openLocalDbEarly();
+      const renders: (string | null)[] = [];
+      function Reader() {
+        const actions = useSyncActions();
+        renders.push(actions ? actions.db.owner.userId : null);
+        return <p>{actions ? 'reader has the database' : 'reader waits'}</p>;
+      }
+      render(
+        <SyncProvider>
+          <Reader />
+        </SyncProvider>,
+      );
+      expect(screen.getByText('reader has the database')).toBeTruthy();
+      // The effect has run by now (render flushes it): it took the same database, no new render.
+      await act(() => Promise.resolve());
+      expect(renders).toEqual(['u-first-render']);
+      expect(early?.owner.userId).toBe('u-first-render');
+    });
+
+    it('is closed and another opened when the effect runs twice (strict mode)', async () => {
+      sessionStore.set(aSession({ user: aUser({ id: 'u-strict' }) }));
+      const early = openLocalDbEarly();
+      render(
+        <StrictMode>
+          <SyncProvider>
+            <Probe />
+          </SyncProvider>
+        </StrictMode>,
+      );
+      expect(await screen.findByText(/^database ready/)).toBeTruthy();
+      // The first effect's cleanup closed the early database; the screens hold the open one.
+      await waitFor(() => expect(lastValue?.db).not.toBe(early));
+      expect(lastValue?.db.owner.userId).toBe('u-strict');
+      expect(early?.isOpen()).toBe(false);
+      await lastValue?.db.open();
+      expect(lastValue?.db.isOpen()).toBe(true);
     });
 
     it('is closed, and another opened, when someone else is signed in by then', async () => {

@@ -77,17 +77,44 @@ export function openLocalDbEarly(): LocalDb | null {
   return early;
 }
 
+function ownedBy(db: LocalDb | null, owner: DbOwner): boolean {
+  return (
+    !!db &&
+    db.owner.userId === owner.userId &&
+    db.owner.businessId === owner.businessId &&
+    db.owner.role === owner.role
+  );
+}
+
 /** The database opened early when it is this person's, else a new one. */
 function takeLocalDb(owner: DbOwner): LocalDb {
   const db = early;
   early = null;
-  const same =
-    db?.owner.userId === owner.userId &&
-    db.owner.businessId === owner.businessId &&
-    db.owner.role === owner.role;
-  if (same) return db;
+  if (db && ownedBy(db, owner)) return db;
   db?.close();
   return new LocalDb(owner);
+}
+
+/**
+ * The runtime of the provider's first render, when this person's database was opened early: the
+ * screens read it in that render, instead of in a second one once the effect has run (that
+ * second render ran inside the first screen's longest task at every start). Only looks: the
+ * effect takes the database (`takeLocalDb`) and settles `started`.
+ */
+function firstRuntime(owner: DbOwner | null): FirstRuntime | null {
+  const db = early;
+  if (!owner || !db || !ownedBy(db, owner)) return null;
+  let settle: (started: Promise<SyncEngine | null>) => void = () => undefined;
+  const started = new Promise<SyncEngine | null>((resolve) => {
+    settle = resolve;
+  });
+  return { runtime: { db, engine: null, started }, settle };
+}
+
+interface FirstRuntime {
+  runtime: Runtime;
+  /** Hands the effect's `started` to the first runtime's (once). */
+  settle: (started: Promise<SyncEngine | null>) => void;
 }
 
 /**
@@ -104,12 +131,17 @@ export function SyncProvider({ children }: { children: ReactNode }) {
   const userId = owner?.userId;
   const businessId = owner?.businessId;
   const role = owner?.role;
-  const [runtime, setRuntime] = useState<Runtime | null>(null);
+  const [first] = useState(() => ({ current: firstRuntime(owner) }));
+  const [runtime, setRuntime] = useState<Runtime | null>(() => first.current?.runtime ?? null);
   const forget = useCallback(() => setRuntime(null), []);
 
   useEffect(() => {
     if (!userId || !businessId || !role) return;
     const db = takeLocalDb({ userId, businessId, role });
+    // The first render's runtime, when it holds this database (used once: after a cleanup, as
+    // in React's strict mode or at a new sign-in, the database is closed and another opened).
+    const initial = first.current?.runtime.db === db ? first.current : null;
+    first.current = null;
     let ended = false;
     let engine: SyncEngine | null = null;
     let cancelIdle = () => undefined as void;
@@ -131,13 +163,14 @@ export function SyncProvider({ children }: { children: ReactNode }) {
           transport: createHttpTransport({ api: apiClient, sessionStore }),
         });
         engine.start();
-        setRuntime({ db, engine, started });
+        setRuntime({ db, engine, started: initial?.runtime.started ?? started });
         void askForPersistentStorageOnce(db).catch(() => undefined);
         return engine;
       },
       () => null,
     );
-    setRuntime({ db, engine: null, started });
+    if (initial) initial.settle(started);
+    else setRuntime({ db, engine: null, started });
     return () => {
       ended = true;
       cancelIdle();
@@ -145,7 +178,7 @@ export function SyncProvider({ children }: { children: ReactNode }) {
       if (engine) void engine.stop().finally(() => db.close());
       else db.close();
     };
-  }, [userId, businessId, role]);
+  }, [first, userId, businessId, role]);
 
   // One tree whether or not the database is there yet: a different element here when it
   // arrives would mount the whole shell below (every page and custom element) a second time.
