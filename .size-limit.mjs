@@ -25,7 +25,9 @@
 // splat where they have no pages under them; sync/SyncProvider.tsx: one tree with or without the
 // database, which is opened before the first render): Lighthouse TBT on Today 533 -> 232 ms and
 // 304 -> 260 ms, performance 0.87 -> 0.96 and 0.93 -> 0.95 (medians of 5, two rounds side by
-// side). It stops the bundle from growing while the rest
+// side). Lowered to ≈240.18 kB by drawing the tab pages' header and the tab labels as plain
+// elements instead of Ionic's header, toolbar, buttons and labels (ion-label left the app). It
+// stops the bundle from growing while the rest
 // of the way to 200 kB is worked on. Lower it with every step down; never raise it without
 // saying why in the commit.
 import { join, relative } from 'node:path';
@@ -40,6 +42,6 @@ export default [
     name: `sign-in + Today JavaScript, gzipped (goal ${firstScreensGoalKb} kB)`,
     path: firstScreenFiles(dist).map((file) => relative(root, join(dist, file))),
     gzip: true,
-    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '241.3 kB',
+    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '240.2 kB',
   },
 ];

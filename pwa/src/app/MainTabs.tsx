@@ -1,4 +1,4 @@
-import { IonLabel, IonRouterOutlet, IonTabBar, IonTabButton, IonTabs } from '@ionic/react';
+import { IonRouterOutlet, IonTabBar, IonTabButton, IonTabs } from '@ionic/react';
 import {
   calendarClearOutline,
   clipboardOutline,
@@ -109,7 +109,7 @@ function SignedInTabs() {
         {visible.map((tab) => (
           <IonTabButton key={tab.id} tab={tab.id} href={tab.path}>
             <Icon icon={icons[tab.id]} />
-            <IonLabel>{tab.label}</IonLabel>
+            <span className="pp-tab-label">{tab.label}</span>
           </IonTabButton>
         ))}
       </IonTabBar>

@@ -1,4 +1,4 @@
-import { IonButton, useIonAlert } from '@ionic/react';
+import { useIonAlert } from '@ionic/react';
 import { logOutOutline } from 'ionicons/icons';
 import { useSignOut } from '../../auth/hooks/useSignOut';
 import { useSync } from '../../../sync/context';
@@ -69,14 +69,14 @@ export function SignOutButton() {
   }
 
   return (
-    <IonButton
-      className="pp-signout pp-header__icon"
-      fill="clear"
+    <button
+      type="button"
+      className="pp-icon-button"
       aria-label="Sign out"
       title="Sign out"
       onClick={confirm}
     >
-      <Icon slot="icon-only" icon={logOutOutline} />
-    </IonButton>
+      <Icon icon={logOutOutline} />
+    </button>
   );
 }
