@@ -9,6 +9,7 @@ import {
 import { QueryClientProvider } from '@tanstack/react-query';
 import { useEffect } from 'react';
 import { Route } from 'react-router-dom';
+import { SessionCheck } from '../features/auth/components/SessionCheck';
 import { useCurrentUser } from '../features/auth/hooks/useCurrentUser';
 import type { Role } from '../features/auth/model/session';
 import {
@@ -81,6 +82,7 @@ export default function MainTabs() {
   return (
     <QueryClientProvider client={queryClient}>
       <SyncProvider>
+        <SessionCheck />
         <SignedInTabs />
       </SyncProvider>
     </QueryClientProvider>
