@@ -77,9 +77,8 @@ export function openLocalDbEarly(): LocalDb | null {
   return early;
 }
 
-function ownedBy(db: LocalDb | null, owner: DbOwner): boolean {
+function ownedBy(db: LocalDb, owner: DbOwner): boolean {
   return (
-    !!db &&
     db.owner.userId === owner.userId &&
     db.owner.businessId === owner.businessId &&
     db.owner.role === owner.role
