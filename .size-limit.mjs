@@ -27,7 +27,9 @@
 // 304 -> 260 ms, performance 0.87 -> 0.96 and 0.93 -> 0.95 (medians of 5, two rounds side by
 // side). Lowered to ≈240.18 kB by drawing the tab pages' header and the tab labels as plain
 // elements instead of Ionic's header, toolbar, buttons and labels (ion-label left the app), then
-// to ≈240.06 kB with the session check in a component of its own (SessionCheck). It
+// to ≈240.06 kB with the session check in a component of its own (SessionCheck), then to
+// ≈239.31 kB with our own tab bar of plain links (features/shell/components/TabBar.tsx) in
+// place of Ionic's tab bar and tab buttons. It
 // stops the bundle from growing while the rest
 // of the way to 200 kB is worked on. Lower it with every step down; never raise it without
 // saying why in the commit.
@@ -43,6 +45,6 @@ export default [
     name: `sign-in + Today JavaScript, gzipped (goal ${firstScreensGoalKb} kB)`,
     path: firstScreenFiles(dist).map((file) => relative(root, join(dist, file))),
     gzip: true,
-    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '240.1 kB',
+    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '239.4 kB',
   },
 ];

@@ -5,7 +5,7 @@ import { axeFindings, blocking, describeFindings, type AxeFinding } from './supp
 import { assertAppIsServed, collectPageErrors, launchChromium } from './support/browser';
 import { waitForFirstPull } from './support/device';
 import { newPhoneContextAt } from './support/screens';
-import { demoOwner, signIn } from './support/signIn';
+import { demoOwner, signIn, tabBar } from './support/signIn';
 import {
   currentStage,
   moveTo,
@@ -61,7 +61,7 @@ describe('accessibility of the workspace screens', () => {
     await page.getByRole('heading', { name: "Today's visits" }).waitFor();
     await check('Today');
 
-    await page.locator('ion-tab-bar').getByText('Jobs', { exact: true }).click();
+    await tabBar(page).getByText('Jobs', { exact: true }).click();
     await page.locator('a.pp-job-card').filter({ hasText: SUV }).first().waitFor();
     await check('Jobs list');
     await openJobFromList(page, SUV);

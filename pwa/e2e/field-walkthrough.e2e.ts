@@ -17,7 +17,7 @@ import {
 } from './support/browser';
 import { deviceState, waitForAllSaved, waitForFirstPull } from './support/device';
 import { newPhoneContextAt, saveScreen } from './support/screens';
-import { demoOwner, signIn, todayTab } from './support/signIn';
+import { demoOwner, signIn, todayTab, tabBar } from './support/signIn';
 import {
   addPin,
   addReadings,
@@ -219,7 +219,7 @@ describe('a whole job in the driveway, offline', () => {
     await saveScreen(page, 'finish');
 
     // The jobs list, with the van now at Finish.
-    await page.locator('ion-tab-bar').getByText('Jobs', { exact: true }).click();
+    await tabBar(page).getByText('Jobs', { exact: true }).click();
     await page.locator('a.pp-job-card').filter({ hasText: VAN }).getByText('Finish').waitFor();
     await saveScreen(page, 'jobs');
 

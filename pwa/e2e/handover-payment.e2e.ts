@@ -10,7 +10,7 @@ import {
   waitForServiceWorkerControl,
 } from './support/browser';
 import { deviceState, waitForFirstPull } from './support/device';
-import { demoOwner, signIn } from './support/signIn';
+import { demoOwner, signIn, tabBar } from './support/signIn';
 import { currentStage, jobIdOf, sheet, showStep, shownPage } from './support/workspace';
 
 /*
@@ -83,7 +83,7 @@ async function signAcceptance(page: Page, signer: string): Promise<void> {
  * has a card for it too: take the one on the page on screen.
  */
 async function openJob(page: Page, address: string): Promise<void> {
-  await page.locator('ion-tab-bar').getByText('Jobs', { exact: true }).click();
+  await tabBar(page).getByText('Jobs', { exact: true }).click();
   await page.waitForURL(`${baseUrl}/jobs`);
   await shownPage(page).locator('a.pp-job-card').filter({ hasText: address }).first().click();
   await page.waitForURL(/\/jobs\/[0-9a-f-]{36}$/);

@@ -5,7 +5,7 @@ import { api, apiSignIn, jobAt } from './support/api';
 import { axeFindings, blocking, describeFindings } from './support/axe';
 import { assertAppIsServed, baseUrl, collectPageErrors, launchChromium } from './support/browser';
 import { newPhoneContextAt } from './support/screens';
-import { demoOwner, signIn } from './support/signIn';
+import { demoOwner, signIn, tabBar } from './support/signIn';
 import { shownPage } from './support/workspace';
 
 /*
@@ -147,7 +147,7 @@ describe('the Ledger (owner)', () => {
 
   it('shows the month of the closed visit with the figures the API gives', async () => {
     await signIn(page, demoOwner);
-    await page.locator('ion-tab-bar').getByText('Ledger', { exact: true }).click();
+    await tabBar(page).getByText('Ledger', { exact: true }).click();
     await page.waitForURL(/\/ledger/);
     await page.goto(`${baseUrl}/ledger?month=${month}`);
     await ledger().waitFor();

@@ -12,7 +12,7 @@ import { axeFindings, blocking, describeFindings, type AxeFinding } from './supp
 import { assertAppIsServed, collectPageErrors, launchChromium } from './support/browser';
 import { waitForAllSaved, waitForFirstPull } from './support/device';
 import { newPhoneContextAt } from './support/screens';
-import { demoOwner, signIn } from './support/signIn';
+import { demoOwner, signIn, tabBar } from './support/signIn';
 import { sheet, shownPage } from './support/workspace';
 
 /*
@@ -170,7 +170,7 @@ describe('from a quote built on the phone to the booked visit in the calendar', 
     expect(expected.result.ok).toBe(true);
     const money = (minor: number) => formatMinor(minor, f.business.currency);
 
-    await page.locator('ion-tab-bar').getByText('Jobs', { exact: true }).click();
+    await tabBar(page).getByText('Jobs', { exact: true }).click();
     await page.getByRole('link', { name: 'New quote' }).click();
     await page.getByRole('heading', { level: 1, name: 'New quote' }).waitFor();
     await page.getByLabel('Customer').selectOption(f.customerId);

@@ -10,7 +10,7 @@ import {
   waitForServiceWorkerControl,
 } from './support/browser';
 import { deviceState, waitForAllSaved, waitForFirstPull } from './support/device';
-import { demoOwner, signIn } from './support/signIn';
+import { demoOwner, signIn, tabBar } from './support/signIn';
 import { sheet, shownPage } from './support/workspace';
 
 /*
@@ -79,7 +79,7 @@ describe('the Shelf and Clients', () => {
     await context.setOffline(true);
     expect(await page.evaluate(() => navigator.onLine)).toBe(false);
 
-    await page.locator('ion-tab-bar').getByText('Shelf', { exact: true }).click();
+    await tabBar(page).getByText('Shelf', { exact: true }).click();
     const shelf = shownPage(page);
     await shelf.getByRole('heading', { level: 1, name: 'Shelf' }).waitFor();
     // The demo's one-step polish is below its mark (150 mL, low at 200): the list says so.
@@ -190,7 +190,7 @@ describe('the Shelf and Clients', () => {
     const hatch = await jobAt(token, HATCH);
     const ws = await api<WorkspaceAnswer>(`/api/jobs/${hatch.id}/workspace`, { token });
 
-    await page.locator('ion-tab-bar').getByText('Clients', { exact: true }).click();
+    await tabBar(page).getByText('Clients', { exact: true }).click();
     const clients = shownPage(page);
     await clients.getByRole('heading', { level: 1, name: 'Clients' }).waitFor();
     await clients.getByLabel('Search clients').fill('lkb1209');

@@ -207,7 +207,8 @@ async function prepare() {
  *  1. content: in an animation frame (just before that frame paints), the visible Today page
  *     shows its "Today's visits" section with as many visit cards as there are visits today in
  *     Dexie (or its empty state when there are none), the date line counts them, and the tab
- *     bar's buttons are hydrated Ionic components (they take taps);
+ *     bar's links are there (plain links take taps as soon as they are drawn; until 2026-12-03
+ *     they were Ionic tab buttons, and the wait included their hydration);
  *  2. interactive: a task posted from that frame has run — the frame with the content has
  *     been produced and the main thread is back at its event loop, so a tap would be handled
  *     now rather than behind rendering or a long task.
@@ -230,8 +231,7 @@ const PROBE = (expected) => `(() => {
     const date = today.querySelector('.pp-today__date')?.textContent ?? '';
     const words = ${expected} === 0 ? 'no visits' : ${expected} === 1 ? '1 visit' : '${expected} visits';
     if (!date.includes(words) || cards !== ${expected}) return false;
-    const tabs = document.querySelectorAll('ion-tab-bar ion-tab-button');
-    return tabs.length > 0 && [...tabs].every((b) => b.classList.contains('hydrated'));
+    return document.querySelectorAll('nav.pp-tabbar a').length > 0;
   };
   document.addEventListener('pointerdown', () => { if (t.tapDown === null) t.tapDown = performance.now(); }, true);
   const frame = () => {
@@ -320,7 +320,7 @@ async function measure() {
             url: location.href,
             today: document.querySelector('.pp-today')?.outerHTML.slice(0, 2000) ?? null,
             pages: [...document.querySelectorAll('.ion-page')].map((p) => p.className),
-            tabs: [...document.querySelectorAll('ion-tab-button')].map((b) => b.className),
+            tabs: [...document.querySelectorAll('nav.pp-tabbar a')].map((b) => b.outerHTML),
             text: document.body.innerText.slice(0, 500),
           }));
           console.error('what the page showed:', JSON.stringify(seen, null, 2));
@@ -330,7 +330,7 @@ async function measure() {
       const fromWorker = await page.evaluate(() => navigator.serviceWorker.controller !== null);
       const jobs = await dexieJobCount(page, state.userId);
       // The page answers input: a tap on the Jobs tab shows the Jobs screen.
-      await page.locator('ion-tab-bar ion-tab-button[tab="jobs"]').tap();
+      await page.locator('nav.pp-tabbar a[href^="/jobs"]').tap();
       await page
         .waitForFunction(() => window.__ppOfflineStart.tapShown !== null, null, {
           timeout: 20_000,

@@ -27,3 +27,8 @@ export async function signIn(page: Page, { email, password }: Credentials): Prom
 export function todayTab(page: Page) {
   return page.getByRole('heading', { level: 1, name: 'Today', exact: true });
 }
+
+/** The bottom tab bar: a landmark of links, one per tab. */
+export function tabBar(page: Page) {
+  return page.getByRole('navigation', { name: 'Sections' });
+}

@@ -1,5 +1,6 @@
 import type { Locator, Page } from 'playwright-core';
 import { baseUrl } from './browser';
+import { tabBar } from './signIn';
 
 /*
  * Steps on the job workspace, as a detailer taps them. Each waits for what the screen says
@@ -20,7 +21,7 @@ export function sheet(page: Page, title: string | RegExp): Locator {
 
 /** Opens the Jobs tab and the job whose card shows this address. */
 export async function openJobFromList(page: Page, address: string): Promise<void> {
-  await page.locator('ion-tab-bar').getByText('Jobs', { exact: true }).click();
+  await tabBar(page).getByText('Jobs', { exact: true }).click();
   await page.waitForURL(`${baseUrl}/jobs`);
   // The Jobs tab's card: Today's list of the same job stays in the page, hidden.
   await page.locator('a.pp-job-card:visible').filter({ hasText: address }).first().click();

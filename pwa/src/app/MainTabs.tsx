@@ -1,11 +1,4 @@
-import { IonRouterOutlet, IonTabBar, IonTabButton, IonTabs } from '@ionic/react';
-import {
-  calendarClearOutline,
-  clipboardOutline,
-  fileTrayStackedOutline,
-  peopleOutline,
-  walletOutline,
-} from 'ionicons/icons';
+import { IonRouterOutlet, IonTabs } from '@ionic/react';
 import { QueryClientProvider } from '@tanstack/react-query';
 import { useEffect } from 'react';
 import { Route } from 'react-router-dom';
@@ -20,11 +13,11 @@ import {
   within,
   type TabId,
 } from '../features/shell/model/access';
+import { TabBar } from '../features/shell/components/TabBar';
 import { TimerDock } from '../features/timers/components/TimerDock';
 import { SyncProvider } from '../sync/SyncProvider';
 import { lazyPage } from './lazyPage';
 import { queryClient } from './queryClient';
-import { Icon } from '../components/Icon';
 
 /** For App's preloadFirstScreen, which loads this chunk before the first render. */
 export { openLocalDbEarly } from '../sync/SyncProvider';
@@ -66,14 +59,6 @@ export async function preloadPage(pathname: string): Promise<void> {
   await (tab ? pages[tab.id] : within(pathname, settingsPath) ? SettingsPage : null)?.preload();
 }
 
-const icons: Record<TabId, string> = {
-  today: calendarClearOutline,
-  jobs: clipboardOutline,
-  clients: peopleOutline,
-  shelf: fileTrayStackedOutline,
-  ledger: walletOutline,
-};
-
 /**
  * The bottom tab bar and its pages, as the signed-in role may see them. Sync (the phone's
  * database and the engine) starts here, after sign-in, so the sign-in screen never loads it.
@@ -107,14 +92,7 @@ function SignedInTabs() {
       </IonRouterOutlet>
       {/* Alarms and the timer strip, above the tab bar (ion-tabs' bottom slot). */}
       {user ? <TimerDock slot="bottom" /> : null}
-      <IonTabBar slot="bottom">
-        {visible.map((tab) => (
-          <IonTabButton key={tab.id} tab={tab.id} href={tab.path}>
-            <Icon icon={icons[tab.id]} />
-            <span className="pp-tab-label">{tab.label}</span>
-          </IonTabButton>
-        ))}
-      </IonTabBar>
+      <TabBar tabs={visible} slot="bottom" />
     </IonTabs>
   );
 }
