@@ -29,7 +29,9 @@
 // elements instead of Ionic's header, toolbar, buttons and labels (ion-label left the app), then
 // to ≈240.06 kB with the session check in a component of its own (SessionCheck), then to
 // ≈239.31 kB with our own tab bar of plain links (features/shell/components/TabBar.tsx) in
-// place of Ionic's tab bar and tab buttons. It
+// place of Ionic's tab bar and tab buttons, then to ≈215.27 kB by building the same code into
+// 15 files instead of 95 (pwa/vite.startup.ts, startupChunkGroups): each file is compressed
+// as a whole, and fewer chunks carry less import and export glue. It
 // stops the bundle from growing while the rest
 // of the way to 200 kB is worked on. Lower it with every step down; never raise it without
 // saying why in the commit.
@@ -45,6 +47,6 @@ export default [
     name: `sign-in + Today JavaScript, gzipped (goal ${firstScreensGoalKb} kB)`,
     path: firstScreenFiles(dist).map((file) => relative(root, join(dist, file))),
     gzip: true,
-    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '239.4 kB',
+    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '215.3 kB',
   },
 ];

@@ -2,14 +2,40 @@ import { fileURLToPath } from 'node:url';
 import react from '@vitejs/plugin-react';
 import { defineConfig } from 'vite';
 import { VitePWA } from 'vite-plugin-pwa';
+import { createRequire } from 'node:module';
 import {
   deferIonicOverlays,
   iconPerModule,
   ionicMdStylesOnly,
+  startupChunkGroups,
   trimmedIonicReact,
 } from './vite.startup.ts';
 
 const sharedEntry = fileURLToPath(new URL('../shared/src/index.ts', import.meta.url));
+const src = (path: string) => fileURLToPath(new URL(`./src/${path}`, import.meta.url));
+
+/** The first screens' code in a few chunks (vite.startup.ts, startupChunkGroups). */
+const startupGroups = startupChunkGroups({
+  early: { name: 'start', roots: [src('main.tsx'), src('boot.tsx')] },
+  // boot.tsx's three parts, in its order.
+  parts: [
+    { name: 'renderer', roots: [createRequire(import.meta.url).resolve('react-dom/client')] },
+    { name: 'ionic', roots: [src('app/startIonic.ts')] },
+    { name: 'app', roots: [src('App.tsx')] },
+  ],
+  screens: [
+    { name: 'tabs', roots: [src('app/MainTabs.tsx'), src('pages/TodayPage.tsx')] },
+    { name: 'sign-in', roots: [src('pages/SignInPage.tsx')] },
+  ],
+  shared: 'app',
+  barrels: [
+    '@ionic/react/dist/index.js',
+    '@tanstack/query-core/build/modern/index.js',
+    '@tanstack/react-query/build/modern/index.js',
+    'shared/src/index.ts',
+    'uuid/dist/esm-browser/index.js',
+  ],
+});
 
 // Colours come from ../shared/design/look.md: `go` for the browser chrome, white behind the splash.
 const themeColour = '#00626B';
@@ -101,6 +127,9 @@ export default defineConfig({
     // it; CSS of lazy chunks is still loaded by Vite's helper.
     modulePreload: false,
     rolldownOptions: {
+      output: {
+        codeSplitting: { groups: startupGroups },
+      },
       treeshake: {
         // Ionic and Ionicons do not declare `sideEffects` in their package.json, so every
         // component module they re-export would be kept (~300 kB gzipped). Their modules only

@@ -2,7 +2,15 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { describe, expect, it } from 'vitest';
-import { dropIosStyles, trimIonicReact } from './vite.startup';
+import {
+  dropIosStyles,
+  staticClosure,
+  startupChunkGroups,
+  startupOwners,
+  trimIonicReact,
+  type StartupParts,
+  type StaticGraph,
+} from './vite.startup';
 
 const require = createRequire(import.meta.url);
 
@@ -69,5 +77,118 @@ describe('trimIonicReact', () => {
 
   it('refuses an @ionic/react that no longer imports ion-icon from ionicons', () => {
     expect(() => trimIonicReact('const a = 1;')).toThrow(/update vite\.startup\.ts/);
+  });
+});
+
+/** A module graph as the bundler's chunking pass gives it: each module's static imports. */
+function graphOf(imports: Record<string, string[]>): StaticGraph {
+  return {
+    getModuleInfo: (id) => (id in imports ? { importedIds: imports[id] ?? [] } : null),
+  };
+}
+
+/** A small app shaped like ours: an entry, a start loading three parts, two first screens. */
+const app = graphOf({
+  '/src/main.tsx': ['/src/access.ts', '/src/boot.tsx'],
+  '/src/boot.tsx': ['/nm/react/index.js'],
+  '/nm/react-dom/client.js': ['/nm/react-dom/dom.js'],
+  '/nm/react-dom/dom.js': ['/nm/react/index.js', '/nm/scheduler/index.js'],
+  '/src/startIonic.ts': ['/nm/@ionic/react/dist/index.js'],
+  '/nm/@ionic/react/dist/index.js': ['/nm/react-dom/dom.js', '/nm/@ionic/core/app.js'],
+  '/src/App.tsx': ['/src/access.ts', '/nm/router/index.js', '/nm/@ionic/react/dist/index.js'],
+  '/src/MainTabs.tsx': ['/src/TabBar.tsx', '/src/TextField.tsx'],
+  '/src/TabBar.tsx': ['/src/access.ts'],
+  '/src/TodayPage.tsx': ['/src/Today.tsx'],
+  '/src/Today.tsx': ['/shared/src/index.ts'],
+  '/shared/src/index.ts': ['/shared/src/stages.ts', '/shared/src/pricing.ts'],
+  '/src/SignInPage.tsx': ['/src/TextField.tsx', '/src/SignInForm.tsx'],
+});
+
+const layout: StartupParts = {
+  early: { name: 'start', roots: ['/src/main.tsx', '/src/boot.tsx'] },
+  parts: [
+    { name: 'renderer', roots: ['/nm/react-dom/client.js'] },
+    { name: 'ionic', roots: ['/src/startIonic.ts'] },
+    { name: 'app', roots: ['/src/App.tsx'] },
+  ],
+  screens: [
+    { name: 'tabs', roots: ['/src/MainTabs.tsx', '/src/TodayPage.tsx'] },
+    { name: 'sign-in', roots: ['/src/SignInPage.tsx'] },
+  ],
+  shared: 'app',
+  barrels: ['@ionic/react/dist/index.js', 'shared/src/index.ts'],
+};
+
+describe('staticClosure', () => {
+  it('follows static imports, not through barrels', () => {
+    expect([...staticClosure(app, ['/src/TodayPage.tsx'])].sort()).toEqual([
+      '/shared/src/index.ts',
+      '/shared/src/pricing.ts',
+      '/shared/src/stages.ts',
+      '/src/Today.tsx',
+      '/src/TodayPage.tsx',
+    ]);
+    expect([...staticClosure(app, ['/src/TodayPage.tsx'], layout.barrels)].sort()).toEqual([
+      '/src/Today.tsx',
+      '/src/TodayPage.tsx',
+    ]);
+  });
+});
+
+describe('startupOwners (the first screens in a few chunks)', () => {
+  const owners = startupOwners(layout, app);
+
+  it('puts each module with the first part importing it, in the order they load', () => {
+    expect(owners.get('/src/access.ts')).toBe('start'); // the entry imports it
+    expect(owners.get('/nm/react/index.js')).toBe('start'); // the start imports it
+    expect(owners.get('/nm/react-dom/dom.js')).toBe('renderer'); // Ionic imports it too
+    expect(owners.get('/nm/scheduler/index.js')).toBe('renderer');
+    expect(owners.get('/src/startIonic.ts')).toBe('ionic');
+    expect(owners.get('/nm/router/index.js')).toBe('app');
+    expect(owners.get('/src/TabBar.tsx')).toBe('tabs');
+    expect(owners.get('/src/Today.tsx')).toBe('tabs');
+    expect(owners.get('/src/SignInForm.tsx')).toBe('sign-in');
+  });
+
+  it('puts what both first screens use with the app, which both load', () => {
+    expect(owners.get('/src/TextField.tsx')).toBe('app');
+  });
+
+  it('leaves the entry, the start and what only barrels lead to to the bundler', () => {
+    for (const id of [
+      '/src/main.tsx',
+      '/src/boot.tsx',
+      '/shared/src/index.ts',
+      '/shared/src/pricing.ts',
+      '/nm/@ionic/react/dist/index.js',
+      '/nm/@ionic/core/app.js',
+    ]) {
+      expect(owners.has(id), id).toBe(false);
+    }
+  });
+});
+
+describe('startupChunkGroups', () => {
+  const groups = startupChunkGroups(layout);
+
+  it('is one group per chunk, earlier ones first (a group takes its imports unless an earlier one has them)', () => {
+    expect(groups.map((g) => g.debugName)).toEqual([
+      'start',
+      'renderer',
+      'ionic',
+      'app',
+      'tabs',
+      'sign-in',
+    ]);
+    const priorities = groups.map((g) => g.priority);
+    expect(priorities).toEqual([...priorities].sort((a, b) => b - a));
+    expect(new Set(priorities).size).toBe(groups.length);
+  });
+
+  it('names only its own modules', () => {
+    const tabs = groups.find((g) => g.debugName === 'tabs');
+    expect(tabs?.name('/src/TabBar.tsx', app)).toBe('tabs');
+    expect(tabs?.name('/src/TextField.tsx', app)).toBeNull();
+    expect(tabs?.name('/src/Elsewhere.tsx', app)).toBeNull();
   });
 });

@@ -225,3 +225,113 @@ export function trimmedIonicReact(): Plugin {
     },
   };
 }
+
+/** What a chunking pass tells about a module: the modules it imports statically. */
+export interface StaticGraph {
+  getModuleInfo(id: string): { importedIds: readonly string[] } | null;
+}
+
+/**
+ * `roots` and every module they import statically, directly or not; not through `barrels`,
+ * modules that re-export others (see StartupParts.barrels).
+ */
+export function staticClosure(
+  graph: StaticGraph,
+  roots: readonly string[],
+  barrels: readonly string[] = [],
+): Set<string> {
+  const isBarrel = (id: string) => {
+    const path = id.replaceAll('\\', '/');
+    return barrels.some((b) => path.endsWith(`/${b}`));
+  };
+  const seen = new Set<string>();
+  const queue = [...roots];
+  for (let id = queue.pop(); id !== undefined; id = queue.pop()) {
+    if (seen.has(id) || isBarrel(id)) continue;
+    seen.add(id);
+    queue.push(...(graph.getModuleInfo(id)?.importedIds ?? []));
+  }
+  return seen;
+}
+
+export interface StartupParts {
+  /**
+   * The entry and the start (boot.tsx): what they import statically goes in a chunk of its own,
+   * `name`, which the entry loads; they stay chunks of their own.
+   */
+  early: { name: string; roots: readonly string[] };
+  /** The parts in the order boot.tsx loads them, each named, by the modules they start from. */
+  parts: readonly { name: string; roots: readonly string[] }[];
+  /** Screens shown first, one or the other: the code both use goes with `shared`. */
+  screens: readonly { name: string; roots: readonly string[] }[];
+  shared: string;
+  /**
+   * Modules that re-export many others (shared/src/index.ts, @ionic/react): the first screens
+   * use only some of what they re-export, and what the rest is used by must stay with the
+   * screens using it. So they are not followed; the bundler's tree-shaking keeps what the
+   * first screens do use, in the chunk of the module using it. Paths, ending module ids.
+   */
+  barrels?: readonly string[];
+}
+
+/** A group of the bundler's code splitting (rolldown's output.codeSplitting.groups). */
+export interface StartupGroup {
+  name: (id: string, graph: StaticGraph) => string | null;
+  debugName: string;
+  priority: number;
+}
+
+/**
+ * The first screens' code in a few chunks. Left to itself the bundler cuts the startup code
+ * into some 95 chunks, one per set of lazy screens sharing it; each is a request, and on a
+ * phone starting offline every request goes through the service worker, one after another on
+ * its thread (measured: the app's scripts arrived over ~600 ms of an offline start). Here it
+ * goes in the parts boot.tsx loads side by side and runs one task each (React's DOM renderer,
+ * Ionic, the app), then one chunk per first screen. A module goes with the first part that
+ * imports it statically, one both screens import with `shared`. A group takes the modules its
+ * modules import too, unless a group before it has them: so the groups go in the order they
+ * load, each with a higher priority than the next, and no part can pull a later one in.
+ */
+export function startupChunkGroups(layout: StartupParts): StartupGroup[] {
+  const owners = new WeakMap<StaticGraph, Map<string, string>>();
+  const ownerOf = (id: string, graph: StaticGraph) => {
+    let owner = owners.get(graph);
+    if (!owner) {
+      owner = startupOwners(layout, graph);
+      owners.set(graph, owner);
+    }
+    return owner.get(id) ?? null;
+  };
+  const names = [
+    layout.early.name,
+    ...layout.parts.map((p) => p.name),
+    ...new Set([layout.shared, ...layout.screens.map((s) => s.name)]),
+  ];
+  return [...new Set(names)].map((name, i, all) => ({
+    debugName: name,
+    priority: all.length - i,
+    name: (id, graph) => (ownerOf(id, graph) === name ? name : null),
+  }));
+}
+
+/** Which startup chunk each module goes in (see startupChunkGroups). */
+export function startupOwners(layout: StartupParts, graph: StaticGraph): Map<string, string> {
+  const owner = new Map<string, string>();
+  const claim = (name: string, ids: Iterable<string>) => {
+    for (const id of ids) if (!owner.has(id)) owner.set(id, name);
+  };
+  const closure = (roots: readonly string[]) => staticClosure(graph, roots, layout.barrels);
+  const early = closure(layout.early.roots);
+  for (const root of layout.early.roots) early.delete(root);
+  claim(layout.early.name, early);
+  for (const root of layout.early.roots) owner.set(root, '');
+  for (const part of layout.parts) claim(part.name, closure(part.roots));
+  const screens = layout.screens.map((s) => ({ name: s.name, ids: closure(s.roots) }));
+  claim(
+    layout.shared,
+    [...(screens[0]?.ids ?? [])].filter((id) => screens.slice(1).some((s) => s.ids.has(id))),
+  );
+  for (const screen of screens) claim(screen.name, screen.ids);
+  for (const root of layout.early.roots) owner.delete(root);
+  return owner;
+}
