@@ -26,24 +26,29 @@ export function newPhoneContextAt(
 }
 
 type IonContentElement = HTMLElement & {
-  scrollToTop(ms: number): Promise<void>;
-  scrollByPoint(x: number, y: number, ms: number): Promise<void>;
+  scrollToTop?(ms: number): Promise<void>;
+  scrollByPoint?(x: number, y: number, ms: number): Promise<void>;
 };
 
 /**
  * Saves what the phone shows as docs/screens/<name>.png (overwritten on each run): from the
- * top of the page, or with `show` just under the header and the sticky stage bar.
+ * top of the page, or with `show` just under the header and the sticky stage bar. The page
+ * scrolls in Ionic's content or, on a tab page, in its own `main.pp-content`.
  */
 export async function saveScreen(page: Page, name: string, show?: Locator): Promise<void> {
   mkdirSync(screensDir, { recursive: true });
-  const content = shownPage(page).locator('ion-content').first();
-  await content.evaluate((el) => (el as IonContentElement).scrollToTop(0));
+  const content = shownPage(page).locator('ion-content, main.pp-content').first();
+  await content.evaluate(async (el: IonContentElement) => {
+    if (el.scrollToTop) await el.scrollToTop(0);
+    else el.scrollTop = 0;
+  });
   if (show) {
     const top = await show.evaluate((el) => el.getBoundingClientRect().top);
-    await content.evaluate(async (el, top) => {
+    await content.evaluate(async (el: IonContentElement, top) => {
       const bar = el.querySelector('.pp-ws-stagebar')?.getBoundingClientRect().bottom;
       const under = bar ?? el.getBoundingClientRect().top;
-      await (el as IonContentElement).scrollByPoint(0, top - under - 12, 0);
+      if (el.scrollByPoint) await el.scrollByPoint(0, top - under - 12, 0);
+      else el.scrollBy(0, top - under - 12);
     }, top);
   }
   // Every picture on screen drawn (photos come from the phone's database as blob: URLs).

@@ -1,4 +1,4 @@
-import { IonContent, IonPage } from '@ionic/react';
+import { IonPage } from '@ionic/react';
 import { settingsOutline } from 'ionicons/icons';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
@@ -12,7 +12,9 @@ import { Icon } from '../../../components/Icon';
  * is our own wrapping row rather than IonTitle/IonButtons, so with large system text the title
  * moves above the badge instead of being squeezed out; and a plain `<header>` with a link and a
  * button rather than Ionic's header, toolbar and buttons, whose custom elements would be
- * defined, connected and drawn at every start (this is the first screen's header).
+ * defined, connected and drawn at every start (this is the first screen's header). The work
+ * scrolls in a plain `<main>` (`.pp-content`) rather than IonContent, for the same reason; no
+ * tab page uses what IonContent adds (scroll events, pull to refresh, infinite scroll).
  */
 export function TabPage({ title, children }: { title: string; children: ReactNode }) {
   return (
@@ -29,9 +31,9 @@ export function TabPage({ title, children }: { title: string; children: ReactNod
           </div>
         </div>
       </header>
-      <IonContent>
+      <main className="pp-content">
         <div className="pp-page">{children}</div>
-      </IonContent>
+      </main>
     </IonPage>
   );
 }
