@@ -104,4 +104,17 @@ describe('TabBar', () => {
     expect(taken).toEqual([true, false]);
     expect(nav.changeTab).toHaveBeenCalledTimes(1);
   });
+
+  it('draws nothing when there are no tabs to show (the session has ended)', () => {
+    const nav = {
+      routeInfo: { id: 'r', pathname: '/settings', search: '' },
+      setCurrentTab: vi.fn(),
+    };
+    render(
+      <NavContext.Provider value={nav as unknown as NavContextState}>
+        <TabBar tabs={[]} />
+      </NavContext.Provider>,
+    );
+    expect(screen.queryByRole('navigation')).toBeNull();
+  });
 });

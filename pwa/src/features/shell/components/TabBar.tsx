@@ -85,6 +85,8 @@ export function TabBar({ tabs, slot }: { tabs: readonly TabDefinition[]; slot?: 
     else if (here !== tab.path) nav.resetTab(tab.id, tab.path);
   };
 
+  // No tabs (the session just ended): no empty landmark either.
+  if (!tabs.length) return null;
   return (
     <nav className="pp-tabbar" slot={slot} aria-label="Sections">
       {tabs.map((tab) => (
