@@ -31,9 +31,10 @@
 // ≈239.31 kB with our own tab bar of plain links (features/shell/components/TabBar.tsx) in
 // place of Ionic's tab bar and tab buttons, then to ≈215.27 kB by building the same code into
 // 15 files instead of 95 (pwa/vite.startup.ts, startupChunkGroups): each file is compressed
-// as a whole, and fewer chunks carry less import and export glue. It
-// stops the bundle from growing while the rest
-// of the way to 200 kB is worked on. Lower it with every step down; never raise it without
+// as a whole, and fewer chunks carry less import and export glue, then to ≈213.10 kB with
+// Ionic's component classes marked pure (pwa/vite.startup.ts, markIonicClassesPure: the tab
+// bar's and tab buttons' classes stayed after the app stopped using them). It stops the
+// bundle from growing while the rest of the way to 200 kB is worked on. Lower it with every step down; never raise it without
 // saying why in the commit.
 import { join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -47,6 +48,6 @@ export default [
     name: `sign-in + Today JavaScript, gzipped (goal ${firstScreensGoalKb} kB)`,
     path: firstScreenFiles(dist).map((file) => relative(root, join(dist, file))),
     gzip: true,
-    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '215.3 kB',
+    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '213.1 kB',
   },
 ];

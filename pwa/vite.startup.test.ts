@@ -4,6 +4,7 @@ import { createRequire } from 'node:module';
 import { describe, expect, it } from 'vitest';
 import {
   dropIosStyles,
+  markIonicClassesPure,
   staticClosure,
   startupChunkGroups,
   startupOwners,
@@ -39,6 +40,27 @@ describe('dropIosStyles (the build keeps only the md look of Ionic)', () => {
   it('goes with the app pinning the md look (src/app/startIonic.ts)', () => {
     const main = readFileSync(new URL('./src/app/startIonic.ts', import.meta.url), 'utf8');
     expect(main).toMatch(/setupIonicReact\(\{[^}]*mode: 'md'/);
+  });
+});
+
+describe('markIonicClassesPure', () => {
+  it('marks each top-level component class Ionic builds, and nothing else', () => {
+    const code =
+      'import{d as o,H as t}from"./p-x.js";const b=o(class extends t{render(){return 1}},[289,"ion-a"]);' +
+      'const c=o(class extends t{},[1,"ion-b"]),f=()=>o(class extends t{});const d=g(1);';
+    const { code: out, marked } = markIonicClassesPure(code);
+    expect(marked).toBe(2);
+    expect(out).toContain('const b=/*@__PURE__*/o(class extends t{render');
+    expect(out).toContain('const c=/*@__PURE__*/o(class extends t{},');
+    expect(out).toContain('f=()=>o(class extends t{})'); // not a top-level binding
+    expect(out).toContain('const d=g(1);');
+  });
+
+  it('finds the class of a real Ionic component', () => {
+    const file = require.resolve('@ionic/core/components/ion-tab-bar.js');
+    const { code, marked } = markIonicClassesPure(readFileSync(file, 'utf8'));
+    expect(marked).toBe(1);
+    expect(code).toMatch(/const \w+=\/\*@__PURE__\*\/\w+\(class extends/);
   });
 });
 

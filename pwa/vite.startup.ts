@@ -171,14 +171,36 @@ export function dropIosStyles(code: string): { code: string; removed: number } {
   return { code: out + code.slice(from), removed };
 }
 
+/**
+ * `code` with each component class Ionic builds at the top level (`const b=o(class extends
+ * t{…},[…])`, Stencil's proxyCustomElement) marked `/*@__PURE__*\/`; counts them. The call
+ * only readies the class its component's `defineCustomElement` registers. Unmarked, it stayed
+ * in the bundle for every component @ionic/react imports, even one no screen uses any more
+ * (the tab bar and tab buttons: features/shell/components/TabBar.tsx draws its own), since
+ * the bundler keeps a module's top-level calls once it keeps the module.
+ */
+export function markIonicClassesPure(code: string): { code: string; marked: number } {
+  let marked = 0;
+  const out = code.replace(
+    /(^|[;}\n])(const \w+=)(\w+\(class extends \w+\{)/g,
+    (_all, before: string, binding: string, call: string) => {
+      marked++;
+      return `${before}${binding}/*@__PURE__*/${call}`;
+    },
+  );
+  return { code: out, marked };
+}
+
+/** Ionic's components, trimmed: the md look only, their classes marked pure (see above). */
 export function ionicMdStylesOnly(): Plugin {
   return {
     name: 'panelpass:ionic-md-styles-only',
     apply: 'build',
     transform(code, id) {
       if (!/[\\/]@ionic[\\/]core[\\/]components[\\/][^\\/]+\.js$/.test(id)) return null;
-      const { code: out, removed } = dropIosStyles(code);
-      return removed ? { code: out, map: null } : null;
+      const { code: styled, removed } = dropIosStyles(code);
+      const { code: out, marked } = markIonicClassesPure(styled);
+      return removed || marked ? { code: out, map: null } : null;
     },
   };
 }
