@@ -33,7 +33,10 @@
 // 15 files instead of 95 (pwa/vite.startup.ts, startupChunkGroups): each file is compressed
 // as a whole, and fewer chunks carry less import and export glue, then to ≈213.10 kB with
 // Ionic's component classes marked pure (pwa/vite.startup.ts, markIonicClassesPure: the tab
-// bar's and tab buttons' classes stayed after the app stopped using them). It stops the
+// bar's and tab buttons' classes stayed after the app stopped using them), then to ≈202.40 kB
+// with Ionic's page and bar components (button, buttons, content, footer, header, title,
+// toolbar) built by the app (pwa/src/components/ionic.ts) and taken out of @ionic/react's
+// startup module, and the sign-in screen's body a plain element. It stops the
 // bundle from growing while the rest of the way to 200 kB is worked on. Lower it with every step down; never raise it without
 // saying why in the commit.
 import { join, relative } from 'node:path';
@@ -48,6 +51,6 @@ export default [
     name: `sign-in + Today JavaScript, gzipped (goal ${firstScreensGoalKb} kB)`,
     path: firstScreenFiles(dist).map((file) => relative(root, join(dist, file))),
     gzip: true,
-    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '213.1 kB',
+    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '202.4 kB',
   },
 ];

@@ -53,6 +53,27 @@ export default tseslint.config(
     rules: {
       'react-hooks/rules-of-hooks': 'error',
       'react-hooks/exhaustive-deps': 'error',
+      'no-restricted-imports': [
+        'error',
+        {
+          paths: [
+            {
+              name: '@ionic/react',
+              importNames: [
+                'IonButton',
+                'IonButtons',
+                'IonContent',
+                'IonFooter',
+                'IonHeader',
+                'IonTitle',
+                'IonToolbar',
+              ],
+              message:
+                "Import it from src/components/ionic: taken from '@ionic/react', its Ionic element loads at every start.",
+            },
+          ],
+        },
+      ],
     },
   },
   {

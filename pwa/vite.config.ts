@@ -7,6 +7,7 @@ import {
   deferIonicOverlays,
   iconPerModule,
   ionicMdStylesOnly,
+  ownIonicComponents,
   startupChunkGroups,
   trimmedIonicReact,
 } from './vite.startup.ts';
@@ -46,8 +47,9 @@ export default defineConfig({
     // Keep overlays and other screens' icons out of the startup chunks (see vite.startup.ts).
     iconPerModule(),
     deferIonicOverlays(),
-    // Components @ionic/react builds but the app never uses left out, one component runtime.
-    trimmedIonicReact(),
+    // Components @ionic/react builds but the app never uses left out, one component runtime;
+    // those the app builds itself (src/components/ionic.ts) taken out.
+    trimmedIonicReact(ownIonicComponents),
     // The app pins Ionic's md look; the ios style sheets are emptied (see vite.startup.ts).
     ionicMdStylesOnly(),
     react(),

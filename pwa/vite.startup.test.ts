@@ -3,8 +3,10 @@ import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { describe, expect, it } from 'vitest';
 import {
+  dropIonicReactComponents,
   dropIosStyles,
   markIonicClassesPure,
+  ownIonicComponents,
   staticClosure,
   startupChunkGroups,
   startupOwners,
@@ -40,6 +42,38 @@ describe('dropIosStyles (the build keeps only the md look of Ionic)', () => {
   it('goes with the app pinning the md look (src/app/startIonic.ts)', () => {
     const main = readFileSync(new URL('./src/app/startIonic.ts', import.meta.url), 'utf8');
     expect(main).toMatch(/setupIonicReact\(\{[^}]*mode: 'md'/);
+  });
+});
+
+describe('dropIonicReactComponents', () => {
+  const ionicReact = readFileSync(require.resolve('@ionic/react'), 'utf8');
+
+  it("takes the app's own components out of @ionic/react: imports, definitions, exports", () => {
+    const out = dropIonicReactComponents(ionicReact, ownIonicComponents);
+    for (const name of ownIonicComponents) {
+      expect(out, name).not.toMatch(new RegExp(`\\b${name}\\$1\\b`));
+      expect(out, name).not.toMatch(new RegExp(`^const ${name} =`, 'm'));
+      expect(out, name).not.toMatch(new RegExp(`^export \\{[^}]*\\b${name}\\b[,} ]`, 'm'));
+    }
+    // The rest stays: a component beside them, and one whose name starts the same.
+    expect(out).toMatch(/^const IonBadge = /m);
+    expect(out).toMatch(/\bIonBackButton, IonBackdrop, IonBadge\b/);
+    expect(out).toMatch(/\bIonTextarea, IonThumbnail, IonToast\b/);
+    expect(ionicReact.length - out.length).toBeGreaterThan(1500);
+  });
+
+  it('refuses an @ionic/react where a component is not where it was', () => {
+    expect(() => dropIonicReactComponents(ionicReact, ['IonNoSuchThing'])).toThrow(
+      /IonNoSuchThing not found once; update vite\.startup\.ts/,
+    );
+  });
+
+  it('matches what src/components/ionic.ts builds and ESLint keeps from @ionic/react', () => {
+    const own = readFileSync(new URL('./src/components/ionic.ts', import.meta.url), 'utf8');
+    const built = [...own.matchAll(/^export const (Ion\w+) =/gm)].map((m) => m[1]);
+    expect(built.sort()).toEqual([...ownIonicComponents].sort());
+    const eslint = readFileSync(new URL('../eslint.config.mjs', import.meta.url), 'utf8');
+    for (const name of ownIonicComponents) expect(eslint).toContain(`'${name}'`);
   });
 });
 

@@ -237,13 +237,70 @@ export function trimIonicReact(code: string): { code: string; changes: number } 
   return { code: out, changes };
 }
 
-export function trimmedIonicReact(): Plugin {
+/** The Ionic components the app builds itself (src/components/ionic.ts), not @ionic/react. */
+export const ownIonicComponents = [
+  'IonButton',
+  'IonButtons',
+  'IonContent',
+  'IonFooter',
+  'IonHeader',
+  'IonTitle',
+  'IonToolbar',
+] as const;
+
+/**
+ * @ionic/react's module without the components `names`, which the app builds itself
+ * (src/components/ionic.ts): their imports of Ionic's elements, their definitions and their
+ * exports. Left in, the import alone kept each element in the startup chunks, where the
+ * module goes (vite.config.ts startupGroups: a chunk takes what its modules import). Throws
+ * when a component is not where it was, so an Ionic upgrade cannot quietly undo this; a
+ * build importing one of them from '@ionic/react' fails (no such export).
+ */
+export function dropIonicReactComponents(code: string, names: readonly string[]): string {
+  let out = code;
+  const once = (pattern: RegExp, name: string, what: string) => {
+    const found = out.match(pattern);
+    if (found?.length !== 1) {
+      throw new Error(`@ionic/react: ${what} of ${name} not found once; update vite.startup.ts`);
+    }
+    out = out.replace(pattern, '');
+  };
+  for (const name of names) {
+    once(
+      new RegExp(
+        `^import \\{ ${name} as ${name}\\$1(, defineCustomElement as defineCustomElement\\$\\w+)? \\} from '@ionic/core/components/ion-[a-z-]+\\.js';\\n`,
+        'gm',
+      ),
+      name,
+      'the import',
+    );
+    once(
+      new RegExp(
+        `^const ${name} = /\\*@__PURE__\\*/ (createComponent\\(\\{\\n[^]*?\\n\\}\\);|createRoutingComponent\\([^)]*\\);)\\n`,
+        'gm',
+      ),
+      name,
+      'the definition',
+    );
+    once(new RegExp(`(?<=^export \\{[^}\\n]*)\\b${name}, `, 'gm'), name, 'the export');
+  }
+  return out;
+}
+
+/**
+ * @ionic/react trimmed (trimIonicReact), without the components the app builds itself
+ * (dropIonicReactComponents).
+ */
+export function trimmedIonicReact(ownComponents: readonly string[] = []): Plugin {
   return {
     name: 'panelpass:trimmed-ionic-react',
     apply: 'build',
     transform(code, id) {
       if (!/[\\/]@ionic[\\/]react[\\/]dist[\\/]index\.js$/.test(id)) return null;
-      return { code: trimIonicReact(code).code, map: null };
+      return {
+        code: dropIonicReactComponents(trimIonicReact(code).code, ownComponents),
+        map: null,
+      };
     },
   };
 }

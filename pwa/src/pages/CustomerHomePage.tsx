@@ -1,4 +1,5 @@
-import { IonContent, IonHeader, IonPage, IonToolbar } from '@ionic/react';
+import { IonPage } from '@ionic/react';
+import { IonContent, IonHeader, IonToolbar } from '../components/ionic';
 import { useSession } from '../features/auth/hooks/useSession';
 import { CustomerArea } from '../features/customer/components/CustomerArea';
 import '../features/customer/customer.css';

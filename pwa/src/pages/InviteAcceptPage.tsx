@@ -1,4 +1,5 @@
-import { IonContent, IonPage, useIonRouter } from '@ionic/react';
+import { IonPage, useIonRouter } from '@ionic/react';
+import { IonContent } from '../components/ionic';
 import { useCallback } from 'react';
 import { useParams } from 'react-router-dom';
 import { BrandHeader } from '../components/BrandHeader';

@@ -1,4 +1,5 @@
-import { IonContent, IonHeader, IonPage, IonToolbar } from '@ionic/react';
+import { IonPage } from '@ionic/react';
+import { IonContent, IonHeader, IonToolbar } from '../components/ionic';
 import { Link } from 'react-router-dom';
 import { useSession } from '../features/auth/hooks/useSession';
 import { HelperUnitsScreen } from '../features/settings/components/HelperUnitsScreen';

@@ -1,4 +1,4 @@
-import { IonContent, IonPage } from '@ionic/react';
+import { IonPage } from '@ionic/react';
 import { useEffect, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { BrandHeader } from '../components/BrandHeader';
@@ -16,7 +16,8 @@ export default function SignInPage() {
   useEffect(() => clearSignInNote(), []);
   return (
     <IonPage>
-      <IonContent>
+      {/* A plain scrolling body (.pp-content), as on the tab pages: this is a first screen. */}
+      <main className="pp-content">
         <div className="pp-auth">
           <BrandHeader
             title="Sign in"
@@ -35,7 +36,7 @@ export default function SignInPage() {
             </Link>
           </p>
         </div>
-      </IonContent>
+      </main>
     </IonPage>
   );
 }

@@ -1,4 +1,5 @@
-import { IonContent, IonPage } from '@ionic/react';
+import { IonPage } from '@ionic/react';
+import { IonContent } from '../components/ionic';
 import { Link } from 'react-router-dom';
 import { BrandHeader } from '../components/BrandHeader';
 import { SignUpForm } from '../features/auth/components/SignUpForm';

@@ -1,4 +1,5 @@
-import { IonButton, IonContent, IonHeader, IonModal, IonToolbar, useIonAlert } from '@ionic/react';
+import { IonModal, useIonAlert } from '@ionic/react';
+import { IonButton, IonContent, IonHeader, IonToolbar } from '../../components/ionic';
 import { useState } from 'react';
 import type { RejectedMutation } from '@panelpass/shared';
 import { Notice, type NoticeTone } from '../../components/Notice';

@@ -1,4 +1,5 @@
-import { IonButton, IonContent, IonFooter, IonHeader, IonModal, IonToolbar } from '@ionic/react';
+import { IonModal } from '@ionic/react';
+import { IonButton, IonContent, IonFooter, IonHeader, IonToolbar } from '../../../components/ionic';
 import { useId, useRef, useState } from 'react';
 import { Notice } from '../../../components/Notice';
 import { SignatureField, type SignatureFieldHandle } from '../../../components/SignatureField';

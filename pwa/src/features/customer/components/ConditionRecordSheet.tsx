@@ -1,4 +1,5 @@
-import { IonButton, IonContent, IonHeader, IonModal, IonToolbar } from '@ionic/react';
+import { IonModal } from '@ionic/react';
+import { IonButton, IonContent, IonHeader, IonToolbar } from '../../../components/ionic';
 import { Notice } from '../../../components/Notice';
 import { VehicleOutlineDrawing } from '../../outline/VehicleOutlineDrawing';
 import {

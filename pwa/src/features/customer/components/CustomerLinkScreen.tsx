@@ -1,4 +1,5 @@
-import { IonContent, IonHeader, IonPage, IonToolbar, useIonRouter } from '@ionic/react';
+import { IonPage, useIonRouter } from '@ionic/react';
+import { IonContent, IonHeader, IonToolbar } from '../../../components/ionic';
 import { useCallback, useEffect, useRef } from 'react';
 import { useParams } from 'react-router-dom';
 import { queryClient } from '../../../app/queryClient';

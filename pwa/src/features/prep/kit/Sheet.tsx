@@ -1,4 +1,5 @@
-import { IonContent, IonFooter, IonHeader, IonModal, IonToolbar } from '@ionic/react';
+import { IonModal } from '@ionic/react';
+import { IonContent, IonFooter, IonHeader, IonToolbar } from '../../../components/ionic';
 import type { ReactNode } from 'react';
 
 /**

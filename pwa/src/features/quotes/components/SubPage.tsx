@@ -1,11 +1,5 @@
-import {
-  IonBackButton,
-  IonButtons,
-  IonContent,
-  IonHeader,
-  IonPage,
-  IonToolbar,
-} from '@ionic/react';
+import { IonBackButton, IonPage } from '@ionic/react';
+import { IonButtons, IonContent, IonHeader, IonToolbar } from '../../../components/ionic';
 import type { ReactNode } from 'react';
 import { SyncBadge } from '../../shell/components/SyncBadge';
 

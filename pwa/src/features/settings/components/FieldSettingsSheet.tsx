@@ -1,4 +1,5 @@
-import { IonButton, IonContent, IonHeader, IonModal, IonToolbar } from '@ionic/react';
+import { IonModal } from '@ionic/react';
+import { IonButton, IonContent, IonHeader, IonToolbar } from '../../../components/ionic';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState, type FormEvent } from 'react';
 import { apiClient } from '../../../app/services';

@@ -1,11 +1,5 @@
-import {
-  IonBackButton,
-  IonButtons,
-  IonContent,
-  IonHeader,
-  IonPage,
-  IonToolbar,
-} from '@ionic/react';
+import { IonBackButton, IonPage } from '@ionic/react';
+import { IonButtons, IonContent, IonHeader, IonToolbar } from '../../../components/ionic';
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import type { ProductRow } from '@panelpass/shared';

@@ -1,4 +1,5 @@
-import { IonButton, IonContent, IonHeader, IonModal, IonToolbar } from '@ionic/react';
+import { IonModal } from '@ionic/react';
+import { IonButton, IonContent, IonHeader, IonToolbar } from '../../../components/ionic';
 import { addOutline, notificationsOutline, phonePortraitOutline } from 'ionicons/icons';
 import { useEffect, useState } from 'react';
 import type { TimerRow } from '@panelpass/shared';

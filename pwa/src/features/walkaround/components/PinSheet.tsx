@@ -1,4 +1,5 @@
-import { IonButton, IonContent, IonFooter, IonHeader, IonModal, IonToolbar } from '@ionic/react';
+import { IonModal } from '@ionic/react';
+import { IonButton, IonContent, IonFooter, IonHeader, IonToolbar } from '../../../components/ionic';
 import { useEffect, useId, useState } from 'react';
 import type { DamagePinRow, JobPanelRow, PhotoRow } from '@panelpass/shared';
 import { Notice } from '../../../components/Notice';

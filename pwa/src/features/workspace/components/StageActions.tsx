@@ -1,4 +1,5 @@
-import { IonFooter, IonToolbar, useIonAlert, useIonToast } from '@ionic/react';
+import { useIonAlert, useIonToast } from '@ionic/react';
+import { IonFooter, IonToolbar } from '../../../components/ionic';
 import { useState } from 'react';
 import { STAGE_LABELS, type JobStage } from '@panelpass/shared';
 import { useChanges } from '../../../sync/useChanges';
