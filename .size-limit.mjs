@@ -36,9 +36,12 @@
 // bar's and tab buttons' classes stayed after the app stopped using them), then to ≈202.40 kB
 // with Ionic's page and bar components (button, buttons, content, footer, header, title,
 // toolbar) built by the app (pwa/src/components/ionic.ts) and taken out of @ionic/react's
-// startup module, and the sign-in screen's body a plain element. It stops the
-// bundle from growing while the rest of the way to 200 kB is worked on. Lower it with every step down; never raise it without
-// saying why in the commit.
+// startup module, and the sign-in screen's body a plain element, then to ≈198.94 kB, under the
+// goal, with the elements @ionic/react imports for components the app never shows (ion-icon,
+// ion-tab-bar, ion-tab-button) loaded only if one is used (pwa/vite.startup.ts,
+// deferredIonicTags): imported statically, they kept their code and the ripple effect in the
+// startup chunks. It stops the bundle from growing. Lower it with every step down; never raise
+// it without saying why in the commit.
 import { join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { firstScreenFiles, firstScreensGoalKb, pwaDist } from './pwa/scripts/first-screens.mjs';
@@ -51,6 +54,6 @@ export default [
     name: `sign-in + Today JavaScript, gzipped (goal ${firstScreensGoalKb} kB)`,
     path: firstScreenFiles(dist).map((file) => relative(root, join(dist, file))),
     gzip: true,
-    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '202.4 kB',
+    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '198.94 kB',
   },
 ];

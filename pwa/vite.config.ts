@@ -46,10 +46,11 @@ export default defineConfig({
   plugins: [
     // Keep overlays and other screens' icons out of the startup chunks (see vite.startup.ts).
     iconPerModule(),
-    deferIonicOverlays(),
     // Components @ionic/react builds but the app never uses left out, one component runtime;
-    // those the app builds itself (src/components/ionic.ts) taken out.
+    // those the app builds itself (src/components/ionic.ts) taken out. Before the overlays are
+    // deferred: ion-icon is deferred from where this plugin points it.
     trimmedIonicReact(ownIonicComponents),
+    deferIonicOverlays(),
     // The app pins Ionic's md look; the ios style sheets are emptied (see vite.startup.ts).
     ionicMdStylesOnly(),
     react(),

@@ -3,6 +3,7 @@ import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { describe, expect, it } from 'vitest';
 import {
+  deferIonicOverlays,
   dropIonicReactComponents,
   dropIosStyles,
   markIonicClassesPure,
@@ -133,6 +134,31 @@ describe('trimIonicReact', () => {
 
   it('refuses an @ionic/react that no longer imports ion-icon from ionicons', () => {
     expect(() => trimIonicReact('const a = 1;')).toThrow(/update vite\.startup\.ts/);
+  });
+});
+
+describe('deferIonicOverlays', () => {
+  const id = require.resolve('@ionic/react');
+  const transform = (code: string): string => {
+    const hook = deferIonicOverlays().transform;
+    if (typeof hook !== 'function') throw new Error('no transform hook');
+    const out = (hook as (code: string, id: string) => { code: string } | null).call({}, code, id);
+    if (!out) throw new Error('not transformed');
+    return out.code;
+  };
+  const built = transform(trimIonicReact(readFileSync(id, 'utf8')).code);
+
+  it('leaves no static import of an overlay or of the elements the app never shows', () => {
+    for (const tag of ['ion-modal', 'ion-toast', 'ion-icon', 'ion-tab-bar', 'ion-tab-button']) {
+      expect(built, tag).not.toMatch(new RegExp(`^import [^;]*/${tag}\\.js';`, 'm'));
+      expect(built, tag).toContain(`import('@ionic/core/components/${tag}.js')`);
+    }
+    // What the first screens show stays a static import.
+    expect(built).toMatch(/^import [^;]*'@ionic\/core\/components\/ion-app\.js';/m);
+  });
+
+  it('refuses an @ionic/react that no longer imports them as it did', () => {
+    expect(() => transform("import React from 'react';")).toThrow(/update vite\.startup\.ts/);
   });
 });
 

@@ -24,6 +24,13 @@ const deferredIonicTags = [
   'ion-nav',
   'ion-popover',
   'ion-toast',
+  // Never shown (icons are inline SVG, src/components/Icon.tsx; the tab bar is our own,
+  // features/shell/components/TabBar.tsx), but @ionic/react imports them for its IonIcon,
+  // IonTabBar and IonTabButton. Imported statically, they kept their own code and what they
+  // import (the ripple effect, which screens opened later use) in the startup chunks.
+  'ion-icon',
+  'ion-tab-bar',
+  'ion-tab-button',
 ];
 
 /**
@@ -268,7 +275,7 @@ export function dropIonicReactComponents(code: string, names: readonly string[])
   for (const name of names) {
     once(
       new RegExp(
-        `^import \\{ ${name} as ${name}\\$1(, defineCustomElement as defineCustomElement\\$\\w+)? \\} from '@ionic/core/components/ion-[a-z-]+\\.js';\\n`,
+        `^import \\{ ${name} as ${name}\\$1(, defineCustomElement as defineCustomElement\\$[\\w$]+)? \\} from '@ionic/core/components/ion-[a-z-]+\\.js';\\n`,
         'gm',
       ),
       name,
