@@ -11,6 +11,8 @@
 //
 // Each page is audited RUNS times (default 5); the median of each figure is printed.
 // PANELPASS_LIGHTHOUSE_REPORTS=<folder> keeps each run's full report (<page>-<run>.json) there;
+// with PANELPASS_LIGHTHOUSE_TRACES=1, its Chromium trace too (<page>-<run>.trace.json), with
+// JavaScript samples for scripts/bench/trace-tasks.mjs (they slow the page: not for figures);
 // PANELPASS_LIGHTHOUSE_PAGES=Today audits only the pages named (comma-separated).
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -22,6 +24,7 @@ const baseUrl = process.env.BENCH_URL;
 if (!baseUrl) throw new Error('BENCH_URL is not set (run scripts/bench/lighthouse)');
 const runs = Number(process.env.RUNS ?? 5);
 const reportDir = process.env.PANELPASS_LIGHTHOUSE_REPORTS;
+const keepTraces = Boolean(reportDir) && process.env.PANELPASS_LIGHTHOUSE_TRACES === '1';
 if (reportDir) mkdirSync(reportDir, { recursive: true });
 const onlyPages = process.env.PANELPASS_LIGHTHOUSE_PAGES?.split(',').map((p) => p.trim());
 const chromePath = process.env.CHROME_PATH ?? '/usr/bin/chromium';
@@ -62,6 +65,8 @@ try {
       logLevel: 'error',
       onlyCategories: ['performance', 'accessibility'],
       disableStorageReset,
+      // JavaScript samples in the kept trace; they slow the page a little, so not for figures.
+      ...(keepTraces ? { additionalTraceCategories: 'disabled-by-default-v8.cpu_profiler' } : {}),
     });
     const lhr = result?.lhr;
     if (!lhr) throw new Error(`Lighthouse gave no result for ${url}`);
@@ -71,6 +76,12 @@ try {
     }
     if (lhr.runtimeError) throw new Error(`${url}: ${lhr.runtimeError.message}`);
     if (reportDir) writeFileSync(join(reportDir, `${name}.json`), JSON.stringify(lhr));
+    // PANELPASS_LIGHTHOUSE_TRACES=1 too: the run's Chromium trace beside it, for
+    // scripts/bench/trace-tasks.mjs (where the blocking time went).
+    const trace = result.artifacts?.Trace;
+    if (keepTraces && trace) {
+      writeFileSync(join(reportDir, `${name}.trace.json`), JSON.stringify(trace));
+    }
     const a = lhr.audits;
     return {
       performance: lhr.categories.performance.score,

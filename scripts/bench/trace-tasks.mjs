@@ -1,5 +1,5 @@
 // What the page's main thread ran in each long task of a Chromium trace taken with JavaScript
-// samples (offline-start's BENCH_TRACE=<file>):
+// samples (offline-start's BENCH_TRACE=<file>, or lighthouse's PANELPASS_LIGHTHOUSE_TRACES=1):
 //
 //   node scripts/bench/trace-tasks.mjs /tmp/start.json [min ms, default 25]
 //
@@ -30,7 +30,14 @@ for (const e of events) {
   const key = `${e.pid}:${e.tid}`;
   if (threadNames.get(key) === 'CrRendererMain') perThread.set(key, (perThread.get(key) ?? 0) + 1);
 }
-const mainKey = [...perThread].sort((a, b) => b[1] - a[1])[0]?.[0];
+// A page navigated across processes leaves two; the page's own has JavaScript samples (a
+// Profile started on that thread), the service worker's process the most events.
+const profiled = new Set(
+  events.filter((e) => e.name === 'Profile').map((e) => `${e.pid}:${e.tid}`),
+);
+const mainKey = [...perThread].sort(
+  (a, b) => Number(profiled.has(b[0])) - Number(profiled.has(a[0])) || b[1] - a[1],
+)[0]?.[0];
 if (!mainKey) throw new Error('no renderer main thread in this trace');
 const [pid, tid] = mainKey.split(':').map(Number);
 
