@@ -7,11 +7,17 @@ import type {
   ProductRow,
   SolventApplicationRow,
 } from '@panelpass/shared';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+// Live queries only run where the browser has a global indexedDB: give the test one first.
+import 'fake-indexeddb/auto';
+import { cleanup, renderHook, waitFor } from '@testing-library/react';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { LocalDb } from '../../../db/localDb';
 import { freshIndexedDb, openTestDb } from '../../../test/localDb';
 import { dueItems } from '../model/dueItems';
-import { readDueRows } from './useDueItems';
+import { readDueRows, useDueItems } from './useDueItems';
+
+// The phone's database of each test, as the signed-in shell would give it.
+vi.mock('../../../db/hooks', () => ({ useLocalDb: () => db }));
 
 const T0 = Date.parse('2026-05-04T13:00:00.000Z');
 const MIN = 60_000;
@@ -124,7 +130,10 @@ beforeEach(async () => {
   await db.rows('climate_readings').bulkPut([reading('r-open', 'open'), reading('r-done', 'done')]);
 });
 
-afterEach(() => db.close());
+afterEach(() => {
+  cleanup();
+  db.close();
+});
 
 describe('readDueRows: what the due list reads on the phone', () => {
   it('reads only open jobs, and only the panels and products their rows name', async () => {
@@ -152,5 +161,23 @@ describe('readDueRows: what the due list reads on the phone', () => {
     expect(rows.solvents).toEqual([]);
     expect(rows.chips).toEqual([]);
     expect(rows.panels.size).toBe(0);
+  });
+});
+
+describe('useDueItems', () => {
+  it('works the list out again when the time moves, not at every render of the screen', async () => {
+    const { result, rerender } = renderHook(({ now }: { now: number }) => useDueItems(now), {
+      initialProps: { now: T0 },
+    });
+    await waitFor(() => expect(result.current?.length).toBeGreaterThan(0));
+    const first = result.current;
+    expect(first?.find((i) => i.kind === 'flush')?.state).toBe('overdue');
+
+    rerender({ now: T0 });
+    expect(result.current).toBe(first);
+
+    rerender({ now: T0 + MIN });
+    expect(result.current).not.toBe(first);
+    expect(result.current).toEqual(dueItems({ ...(await readDueRows(db)), nowMs: T0 + MIN }));
   });
 });

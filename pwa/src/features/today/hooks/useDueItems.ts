@@ -1,5 +1,6 @@
 import { useLiveQuery } from 'dexie-react-hooks';
 import type { JobPanelRow, ProductRow } from '@panelpass/shared';
+import { useMemo } from 'react';
 import { useLocalDb } from '../../../db/hooks';
 import type { LocalDb } from '../../../db/localDb';
 import { dueItems, type DueInput, type DueItem } from '../model/dueItems';
@@ -52,8 +53,12 @@ function useDueRows(): Rows | undefined {
   return useLiveQuery(async () => (db ? readDueRows(db) : undefined), [db]);
 }
 
-/** What needs doing now or soon across every open job, at `nowMs` (server clock). */
+/**
+ * What needs doing now or soon across every open job, at `nowMs` (server clock). Worked out
+ * again only when the rows or the time change, not whenever the screen renders for another
+ * reason (the settings or the session answering after the start).
+ */
 export function useDueItems(nowMs: number): DueItem[] | undefined {
   const rows = useDueRows();
-  return rows ? dueItems({ ...rows, nowMs }) : undefined;
+  return useMemo(() => (rows ? dueItems({ ...rows, nowMs }) : undefined), [rows, nowMs]);
 }

@@ -14,6 +14,7 @@ import {
   type SolventApplicationRow,
   type TempReading,
 } from '@panelpass/shared';
+import { clockTime } from '../../prep/kit/clockTime';
 
 /** Something on a job that needs doing now or soon. */
 export interface DueItem {
@@ -68,10 +69,6 @@ export function cureProductOf(product: ProductRow | null | undefined): CureProdu
 const panelWords = (panel: JobPanelRow | undefined) =>
   panel ? ` off the ${panel.label.toLowerCase()}` : '';
 
-function clock(ms: number): string {
-  return new Date(ms).toLocaleTimeString(undefined, { timeStyle: 'short' });
-}
-
 /**
  * Across every open job: solvents to flush (shared `flushStatus`, due soon in the last
  * minute), masking to take off (shared `maskStatus`, due soon in its last day) and chips
@@ -94,7 +91,7 @@ export function dueItems(input: DueInput): DueItem[] {
       kind: 'flush',
       jobId: s.jobId,
       title: `Flush ${product?.name ?? 'the solvent'}${panelWords(s.panelId ? input.panels.get(s.panelId) : undefined)}`,
-      detail: `${status.reasons[0]?.message ?? ''} Flush by ${clock(flushByMs)}.`.trim(),
+      detail: `${status.reasons[0]?.message ?? ''} Flush by ${clockTime(flushByMs)}.`.trim(),
       state: status.state,
       dueAtMs: flushByMs,
     });
@@ -186,10 +183,10 @@ export function dueItems(input: DueInput): DueItem[] {
     const task = item.what === 'layer' ? `layer ${item.layer}` : 'level and polish';
     const detail =
       item.state === 'due-soon'
-        ? `Ready for layer ${item.layer} at ${clock(atMs)}.`
+        ? `Ready for layer ${item.layer} at ${clockTime(atMs)}.`
         : item.what === 'layer'
-          ? `Ready for layer ${item.layer} since ${clock(atMs)}.`
-          : `Cured: ready to level since ${clock(atMs)}.`;
+          ? `Ready for layer ${item.layer} since ${clockTime(atMs)}.`
+          : `Cured: ready to level since ${clockTime(atMs)}.`;
     items.push({
       key: `chips:${groupKey}`,
       kind: 'chip',
