@@ -8,7 +8,7 @@
 //   workspace  GET /api/jobs/:id/workspace (the job page's whole field record)
 //   list       GET /api/jobs?from=&to=&limit=50 (a fortnight around today, first page)
 // and, reported apart, one first full pull (cursor 0, page after page, in pages of the app's size,
-// PULL_PAGE_ROWS, or of each size in API_BENCH_PULL_LIMITS=1000,2500) as a new phone does.
+// PULL_PAGE_ROWS, or of each size in API_BENCH_PULL_LIMITS=1000,2500; 0 for none) as a new phone does.
 // Each endpoint is measured twice: closed loop (the connections send back to back, so the server
 // is saturated and the latency is mostly queueing) and open loop (the same connections sharing a
 // fixed total rate, API_BENCH_RATE req/s: latency at a stated, realistic load).
@@ -209,7 +209,8 @@ console.log(
 // brotli as Chromium does.
 for (const pageRows of (process.env.API_BENCH_PULL_LIMITS ?? String(PULL_PAGE_ROWS))
   .split(',')
-  .map(Number)) {
+  .map(Number)
+  .filter((n) => n > 0)) {
   t0 = performance.now();
   let full = 0;
   let pages = 0;

@@ -95,6 +95,54 @@ describe('JSON rows read like TypeORM', () => {
     expect(withRows).toBeGreaterThan(20);
   });
 
+  it('sends the same JSON as the entities find() makes, for every table', async () => {
+    // Dates beyond JavaScript's four-digit years, where it writes a sign and six digits.
+    await ds.query(`UPDATE jobs SET window_end = '10000-01-01 00:00:00.5+00'
+      WHERE id = (SELECT id FROM jobs ORDER BY id LIMIT 1 OFFSET 1)`);
+    await ds.query(`UPDATE jobs SET created_at = '0001-01-01 00:00:00+00'
+      WHERE id = (SELECT id FROM jobs ORDER BY id LIMIT 1 OFFSET 2)`);
+    let compared = 0;
+    for (const entity of entities) {
+      const meta = ds.getMetadata(entity);
+      const key = meta.primaryColumns.map((c) => `t."${c.databaseName}"`).join(', ');
+      const order = Object.fromEntries(meta.primaryColumns.map((c) => [c.propertyName, 'ASC']));
+      const expected: ObjectLiteral[] = await ds
+        .getRepository<ObjectLiteral>(entity)
+        .find({ withDeleted: true, order });
+      const reader = jsonRows<ObjectLiteral>(ds, entity);
+      const [{ rows }] = await ds.query<[{ rows: unknown[][] }]>(
+        `SELECT coalesce(json_agg(${reader.sentRow('t')} ORDER BY ${key}), '[]') AS rows
+         FROM ${reader.table} t`,
+      );
+      expect({ table: meta.tableName, n: rows.length }).toEqual({
+        table: meta.tableName,
+        n: expected.length,
+      });
+      rows.forEach((values, i) => {
+        const sent = reader.toSent(values);
+        expect(Object.getPrototypeOf(sent)).toBe(Object.prototype);
+        expect({ table: meta.tableName, json: JSON.stringify(sent) }).toEqual({
+          table: meta.tableName,
+          json: JSON.stringify(expected[i]),
+        });
+        compared++;
+      });
+    }
+    expect(compared).toBeGreaterThan(200);
+    const jobs = ds.getMetadata(entities.find((e) => e.name === 'Job')!);
+    const reader = jsonRows<ObjectLiteral>(ds, jobs.target);
+    const [{ rows }] = await ds.query<[{ rows: unknown[][] }]>(
+      `SELECT json_agg(${reader.sentRow('t')} ORDER BY t.id) AS rows FROM jobs t`,
+    );
+    expect(reader.toSent(rows[1]!).windowEnd).toBe('+010000-01-01T00:00:00.500Z');
+    expect(reader.toSent(rows[2]!).createdAt).toBe('0001-01-01T00:00:00.000Z');
+    // Left out as asked (a helper does not get a job's price).
+    const sent = reader.toSent(rows[0]!, new Set(['priceMinor']));
+    expect(Object.keys(sent)).toEqual(
+      jobs.columns.map((c) => c.propertyName).filter((k) => k !== 'priceMinor'),
+    );
+  });
+
   it('keeps the awkward values exactly', async () => {
     const [{ rows }] = await ds.query<[{ rows: unknown[][] }]>(
       `SELECT ${jsonRows(

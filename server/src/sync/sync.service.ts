@@ -65,9 +65,9 @@ const OWNER_ONLY_TABLES = new Set<SyncTable>([
   'stock_movements',
 ]);
 /** Fields a helper's device never receives. */
-const HIDDEN_FROM_TECH: Partial<Record<SyncTable, string[]>> = {
-  jobs: ['priceMinor'],
-  products: ['unitCostMinor'],
+const HIDDEN_FROM_TECH: Partial<Record<SyncTable, ReadonlySet<string>>> = {
+  jobs: new Set(['priceMinor']),
+  products: new Set(['unitCostMinor']),
 };
 
 /**
@@ -306,9 +306,10 @@ export class SyncService {
       const raw = row[`t${i}`];
       if (!raw?.length) return;
       const reader = jsonRows<ObjectLiteral>(this.db, this.entityOf(table));
+      const hidden = actor.role === 'tech' ? HIDDEN_FROM_TECH[table] : undefined;
       const rows: SyncRow[] = [];
       for (const values of raw.slice(0, limit)) {
-        const r = this.present(actor, table, reader.hydrate(values));
+        const r = reader.toSent(values, hidden) as SyncRow & { version: number };
         if (r.version <= truncatedAt) rows.push(r);
       }
       if (!rows.length) return;
@@ -351,7 +352,7 @@ export class SyncService {
       const reader = jsonRows<ObjectLiteral>(this.db, this.entityOf(table));
       const prev = i === 0 ? none : `(SELECT cut FROM k${i - 1})`;
       ctes.push(
-        `p${i} AS MATERIALIZED (SELECT t.version, ${reader.row('t')} AS r FROM "${table}" t
+        `p${i} AS MATERIALIZED (SELECT t.version, ${reader.sentRow('t')} AS r FROM "${table}" t
           WHERE t.business_id = $1 AND ${this.scopeSql(actor, table)}
             AND t.version > (SELECT cursor FROM c) AND t.version <= ${prev}
           ORDER BY t.version LIMIT $6::int + 1)`,
@@ -398,16 +399,6 @@ export class SyncService {
     }
     if (table === 'products') return 'true';
     return null;
-  }
-
-  private present(
-    actor: Actor,
-    table: SyncTable,
-    row: ObjectLiteral,
-  ): SyncRow & { version: number } {
-    const out: Record<string, unknown> = { ...row };
-    if (actor.role === 'tech') for (const f of HIDDEN_FROM_TECH[table] ?? []) delete out[f];
-    return out as SyncRow & { version: number };
   }
 
   private checkRole(actor: Actor): void {
