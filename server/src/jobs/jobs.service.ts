@@ -291,10 +291,10 @@ export class JobsService implements OnModuleInit {
     const jobRows = jsonRows(this.db, Job);
     // One statement: the page (the joins are one to one, so plain LIMIT/OFFSET), the count
     // (a window count over the same rows; counted apart only past the end), and what the
-    // summaries need.
-    const [row] = await this.db.query<
-      (SummaryParts & { jobs: unknown[][]; total: string | null })[]
-    >(
+    // summaries need. Prepared: the filters give a few dozen texts at most, and parsing and
+    // planning this one afresh cost more than running it (1.9 of 3.4 ms in PostgreSQL).
+    const [row] = await preparedQuery<SummaryParts & { jobs: unknown[][]; total: string | null }>(
+      this.db,
       `WITH j AS MATERIALIZED (
          SELECT j.*, count(*) OVER () AS total_count ${from}
          ORDER BY j.window_start ASC, j.id ASC LIMIT ${p(limit)} OFFSET ${p(offset)})
