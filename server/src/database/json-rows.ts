@@ -77,7 +77,7 @@ export class JsonRows<T extends ObjectLiteral> {
    * One row made by `sentRow()` as a plain object: the entity's properties in the entity's
    * order, whose JSON is the entity's JSON; `omit` leaves properties out.
    */
-  toSent(values: unknown[], omit?: ReadonlySet<string>): Record<string, unknown> {
+  toSent(values: unknown[], omit?: ReadonlySet<string>): Sent<T> {
     const out: Record<string, unknown> = {};
     for (let i = 0; i < this.columns.length; i++) {
       const column = this.columns[i]!;
@@ -91,7 +91,12 @@ export class JsonRows<T extends ObjectLiteral> {
         out[column.propertyName] = this.hydrated(value, i);
       }
     }
-    return out;
+    return out as Sent<T>;
+  }
+
+  /** The objects of a list of `sentRow()`s (null reads as none). */
+  toSentAll(rows: unknown[][] | null | undefined): Sent<T>[] {
+    return rows ? rows.map((r) => this.toSent(r)) : [];
   }
 
   /**
@@ -149,6 +154,11 @@ export class JsonRows<T extends ObjectLiteral> {
     return rows ? rows.map((r) => this.hydrate(r)) : [];
   }
 }
+
+/** An entity as it goes out in JSON (`toSent`): each timestamp as its ISO text. */
+export type Sent<T> = {
+  [K in keyof T]: T[K] extends Date ? string : T[K] extends Date | null ? string | null : T[K];
+};
 
 type Kind = 'date' | 'text' | 'float' | 'floats' | 'plain';
 

@@ -10,6 +10,7 @@ import {
   MAX_VISIT_WINDOW_MS,
   visitWindowProblem,
   type BodyStyle,
+  type PaymentLike,
 } from '@panelpass/shared';
 import { DataSource, EntityManager, In } from 'typeorm';
 import type { Actor } from '../auth/current-user.decorator';
@@ -24,7 +25,7 @@ import {
   jobInScope,
   jobScopeSql,
 } from '../common/scope';
-import { jsonRows } from '../database/json-rows';
+import { jsonRows, type Sent } from '../database/json-rows';
 import { preparedQuery } from '../database/prepared-query';
 import { Customer } from '../customers/customer.entity';
 import { ChecklistItem } from '../checklist/checklist-item.entity';
@@ -62,7 +63,11 @@ export type BookingHook = (
   change: 'created' | 'updated' | 'removed',
 ) => Promise<void>;
 
-export interface JobSummary extends Omit<Job, 'priceMinor' | 'notes'> {
+/**
+ * A job as the jobs list and the job page show it (`J`: the job as sent, or its entity): with
+ * names and the amount due.
+ */
+export type Summarized<J> = Omit<J, 'priceMinor' | 'notes'> & {
   /** Absent for a helper: they see what is due, not the price. */
   priceMinor?: number;
   /** The staff's internal notes (a gate code, a remark): absent for the job's customer. */
@@ -70,7 +75,9 @@ export interface JobSummary extends Omit<Job, 'priceMinor' | 'notes'> {
   amountDueMinor: number;
   customerName: string;
   vehicleLabel: string;
-}
+};
+
+export type JobSummary = Summarized<Sent<Job>>;
 
 @Injectable()
 export class JobsService implements OnModuleInit {
@@ -298,13 +305,13 @@ export class JobsService implements OnModuleInit {
       `WITH j AS MATERIALIZED (
          SELECT j.*, count(*) OVER () AS total_count ${from}
          ORDER BY j.window_start ASC, j.id ASC LIMIT ${p(limit)} OFFSET ${p(offset)})
-       SELECT (SELECT coalesce(json_agg(${jobRows.row('j')} ORDER BY j.window_start, j.id), '[]'::json)
+       SELECT (SELECT coalesce(json_agg(${jobRows.sentRow('j')} ORDER BY j.window_start, j.id), '[]'::json)
                  FROM j) AS jobs,
               (SELECT total_count FROM j LIMIT 1) AS total,
-              ${summarySql(this.db)}`,
+              ${summarySql()}`,
       params,
     );
-    const jobs = jobRows.hydrateAll(row?.jobs);
+    const jobs = jobRows.toSentAll(row?.jobs);
     let total = Number(row?.total ?? 0);
     if (!jobs.length && offset > 0) {
       // Past the end: counted without the page.
@@ -322,11 +329,11 @@ export class JobsService implements OnModuleInit {
     const [row] = await preparedQuery<SummaryParts & { job: unknown[] | null }>(
       this.db,
       `WITH j AS MATERIALIZED (SELECT t.* FROM jobs t WHERE ${jobScopeSql(actor, id, params)})
-       SELECT (SELECT ${jsonRows(this.db, Job).row('j')} FROM j) AS job, ${summarySql(this.db)}`,
+       SELECT (SELECT ${jsonRows(this.db, Job).sentRow('j')} FROM j) AS job, ${summarySql()}`,
       params,
     );
     if (!row?.job) throw notFound('Job');
-    const job = jsonRows(this.db, Job).hydrate(row.job);
+    const job = jsonRows(this.db, Job).toSent(row.job);
     return this.summarizeWith(actor, [job], row)[0]!;
   }
 
@@ -334,24 +341,25 @@ export class JobsService implements OnModuleInit {
    * Adds names and the amount due; strips the price for a helper and the notes for a customer.
    * `parts` are the jobs' customers, vehicles and payments as `summarySql` reads them.
    */
-  summarizeWith(actor: Actor, jobs: Job[], parts: SummaryParts): JobSummary[] {
+  summarizeWith<J extends Pick<Job, 'id' | 'customerId' | 'vehicleId' | 'priceMinor' | 'notes'>>(
+    actor: Actor,
+    jobs: J[],
+    parts: SummaryParts,
+  ): Summarized<J>[] {
     if (!jobs.length) return [];
-    const customers = jsonRows(this.db, Customer).hydrateAll(parts.customers);
-    const vehicles = jsonRows(this.db, Vehicle).hydrateAll(parts.vehicles);
-    const payments = jsonRows(this.db, Payment).hydrateAll(parts.payments);
-    const customerName = new Map(customers.map((c) => [c.id, c.name]));
+    const customerName = new Map(parts.customers);
     const vehicleLabel = new Map(
-      vehicles.map((v) => [
-        v.id,
-        [v.colour, v.make, v.model].filter(Boolean).join(' ') || v.bodyStyle,
+      parts.vehicles.map(([id, colour, make, model, bodyStyle]) => [
+        id,
+        [colour, make, model].filter(Boolean).join(' ') || bodyStyle,
       ]),
     );
-    const paymentsOf = new Map<string, Payment[]>();
-    for (const p of payments) {
-      if (!p.jobId) continue;
-      const list = paymentsOf.get(p.jobId);
+    const paymentsOf = new Map<string, PaymentLike[]>();
+    for (const [jobId, kind, status, amountMinor] of parts.payments) {
+      const p = { kind: kind as PaymentLike['kind'], status, amountMinor };
+      const list = paymentsOf.get(jobId);
       if (list) list.push(p);
-      else paymentsOf.set(p.jobId, [p]);
+      else paymentsOf.set(jobId, [p]);
     }
     return jobs.map((job) => {
       const own = paymentsOf.get(job.id) ?? [];
@@ -360,14 +368,7 @@ export class JobsService implements OnModuleInit {
         ...rest,
         ...(actor.role === 'tech' ? {} : { priceMinor }),
         ...(actor.role === 'customer' ? {} : { notes }),
-        amountDueMinor: amountDueMinor(
-          priceMinor,
-          own.map((p) => ({
-            kind: p.kind as 'deposit' | 'balance' | 'refund',
-            status: p.status,
-            amountMinor: p.amountMinor,
-          })),
-        ),
+        amountDueMinor: amountDueMinor(priceMinor, own),
         customerName: customerName.get(job.customerId) ?? '',
         vehicleLabel: vehicleLabel.get(job.vehicleId) ?? '',
       };
@@ -405,21 +406,32 @@ function checkWindow(start: Date, end: Date): void {
   }
 }
 
-/** What summarizing jobs needs besides the jobs, as JSON rows (see `summarySql`). */
+/** What summarizing jobs needs besides the jobs, as `summarySql` reads them. */
 export interface SummaryParts {
-  customers: unknown[][];
-  vehicles: unknown[][];
-  payments: unknown[][];
+  /** [id, name] of each customer of the jobs. */
+  customers: [string, string][];
+  /** [id, colour, make, model, body style] of each vehicle of the jobs. */
+  vehicles: [string, string, string, string, string][];
+  /** [job id, kind, status, amount] of each payment of the jobs (none deleted). */
+  payments: [string, string, string, number][];
 }
 
 /**
- * Scalar subqueries naming the customers, vehicles (tombstones included: an old job keeps its
- * names) and payments of the jobs of a CTE `j`, as `customers`, `vehicles` and `payments`.
+ * Scalar subqueries of what the summaries of the jobs of a CTE `j` need — their customers'
+ * names, their vehicles' labels (tombstones included: an old job keeps its names) and their
+ * payments — as `customers`, `vehicles` and `payments` (see `SummaryParts`). Only those
+ * columns: whole rows cost the database JSON and the server entities it then did not use.
  */
-export function summarySql(ds: DataSource): string {
+export function summarySql(): string {
+  const list = (columns: string, from: string, where: string) =>
+    `(SELECT coalesce(json_agg(json_build_array(${columns})), '[]'::json) FROM ${from} t WHERE ${where})`;
   return [
-    `${jsonRows(ds, Customer).list('t.id IN (SELECT customer_id FROM j)')} AS customers`,
-    `${jsonRows(ds, Vehicle).list('t.id IN (SELECT vehicle_id FROM j)')} AS vehicles`,
-    `${jsonRows(ds, Payment).list('t.job_id IN (SELECT id FROM j) AND t.deleted_at IS NULL')} AS payments`,
+    `${list('t.id, t.name', 'customers', 't.id IN (SELECT customer_id FROM j)')} AS customers`,
+    `${list('t.id, t.colour, t.make, t.model, t.body_style', 'vehicles', 't.id IN (SELECT vehicle_id FROM j)')} AS vehicles`,
+    `${list(
+      't.job_id, t.kind, t.status, t.amount_minor',
+      'payments',
+      't.job_id IN (SELECT id FROM j) AND t.deleted_at IS NULL',
+    )} AS payments`,
   ].join(',\n');
 }

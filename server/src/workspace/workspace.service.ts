@@ -29,7 +29,7 @@ import { jsonRows } from '../database/json-rows';
 import { preparedQuery } from '../database/prepared-query';
 import { Job } from '../jobs/job.entity';
 import { Customer } from '../customers/customer.entity';
-import { JobsService, summarySql, type JobSummary, type SummaryParts } from '../jobs/jobs.service';
+import { JobsService, summarySql, type Summarized, type SummaryParts } from '../jobs/jobs.service';
 import { MaskingItem } from '../masking/masking-item.entity';
 import { describeMask, type MaskAnswer } from '../masking/masking.service';
 import { JobPanel } from '../panels/job-panel.entity';
@@ -71,7 +71,7 @@ export interface ProductRef {
 export interface Workspace {
   /** The server's clock, so a device can correct its own for timers. */
   serverNow: string;
-  job: Omit<JobSummary, 'notes'> & { notes?: string };
+  job: Omit<Summarized<Job>, 'notes'> & { notes?: string };
   customer: Omit<Customer, 'notes'> & { notes?: string };
   vehicle: Vehicle;
   /** Top-down, in the body-style template's order. */
@@ -113,11 +113,19 @@ export class WorkspaceService {
     const own = (table: string) =>
       `SELECT product_id FROM ${table} WHERE job_id = $1 AND business_id = ${b} AND deleted_at IS NULL`;
     const r = <T extends ObjectLiteral>(entity: EntityTarget<T>) => jsonRows(this.db, entity);
-    const [row] = await preparedQuery<SummaryParts & Record<string, unknown[][] | null>>(
+    const [row] = await preparedQuery<
+      SummaryParts & {
+        job: unknown[] | null;
+        customer: unknown[] | null;
+        vehicle: unknown[] | null;
+      } & Record<string, unknown[][] | null>
+    >(
       this.db,
       `WITH j AS MATERIALIZED (SELECT t.* FROM jobs t WHERE ${scope})
        SELECT (SELECT ${r(Job).row('j')} FROM j) AS job,
-         ${summarySql(this.db)},
+         ${summarySql()},
+         ${r(Customer).one('t.id = (SELECT customer_id FROM j)')} AS customer,
+         ${r(Vehicle).one('t.id = (SELECT vehicle_id FROM j)')} AS vehicle,
          ${r(JobPanel).list(of, 't.position ASC')} AS panels,
          ${r(FilmReading).list(of, 't.taken_at ASC, t.version ASC')} AS readings,
          ${r(CorrectionPass).list(of)} AS passes,
@@ -146,8 +154,8 @@ export class WorkspaceService {
     if (!row?.job) throw notFound('Job');
     const job = r(Job).hydrate(row.job);
     const [summary] = this.jobs.summarizeWith(actor, [job], row);
-    const customer = r(Customer).hydrateAll(row.customers)[0];
-    const vehicle = r(Vehicle).hydrateAll(row.vehicles)[0];
+    const customer = row.customer ? r(Customer).hydrate(row.customer) : undefined;
+    const vehicle = row.vehicle ? r(Vehicle).hydrate(row.vehicle) : undefined;
     if (!customer || !vehicle) throw new Error(`Job ${job.id} without its customer or vehicle`);
     const panels = r(JobPanel).hydrateAll(row.panels);
     const readings = r(FilmReading).hydrateAll(row.readings);
