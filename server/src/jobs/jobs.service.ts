@@ -30,7 +30,6 @@ import { preparedQuery } from '../database/prepared-query';
 import { Customer } from '../customers/customer.entity';
 import { ChecklistItem } from '../checklist/checklist-item.entity';
 import { JobPanel } from '../panels/job-panel.entity';
-import { Payment } from '../payments/payment.entity';
 import { User } from '../users/user.entity';
 import { Vehicle } from '../vehicles/vehicle.entity';
 import {
