@@ -11,7 +11,8 @@
 // PULL_PAGE_ROWS, or of each size in API_BENCH_PULL_LIMITS=1000,2500; 0 for none) as a new phone does.
 // Each endpoint is measured twice: closed loop (the connections send back to back, so the server
 // is saturated and the latency is mostly queueing) and open loop (the same connections sharing a
-// fixed total rate, API_BENCH_RATE req/s: latency at a stated, realistic load).
+// fixed total rate, API_BENCH_RATE req/s: latency at a stated, realistic load). Last, the highest
+// such rate (raised by half a step from API_BENCH_RATE) at which each endpoint keeps p99 under the goal.
 import { randomUUID } from 'node:crypto';
 import { readdirSync, readFileSync } from 'node:fs';
 import http from 'node:http';
@@ -351,6 +352,38 @@ for (const [name, path, auth] of endpoints) {
   console.log(`  ${name}: ${r.rps.toFixed(0)} req/s, p50 ${ms(r.p50)} ms, p99 ${ms(r.p99)} ms`);
 }
 
+// 5. The highest steady rate each endpoint keeps within the goal: the rate raised by half from
+// API_BENCH_RATE (for API_BENCH_STEP_SECONDS each) until p99 reaches GOAL_MS.
+const STEP_SECONDS = Number(process.env.API_BENCH_STEP_SECONDS ?? 4);
+const MAX_RATE = Number(process.env.API_BENCH_MAX_RATE ?? 3200);
+console.log(
+  `rate within the goal: ${CONNECTIONS} connections, the rate raised by half from ${RATE} req/s until p99 reaches ${GOAL_MS} ms, ${STEP_SECONDS} s a step`,
+);
+const capacity = {};
+for (const [name, path, auth] of endpoints) {
+  const steps = [];
+  for (let rate = RATE; rate <= MAX_RATE; rate = Math.round(rate * 1.5)) {
+    await api(url, path, { token: auth });
+    let r;
+    try {
+      r = await steady(path, {
+        token: auth,
+        connections: CONNECTIONS,
+        rate,
+        seconds: STEP_SECONDS,
+      });
+    } catch (e) {
+      r = { p99: Number.POSITIVE_INFINITY, failed: String(e) };
+    }
+    steps.push(`${rate}: ${Number.isFinite(r.p99) ? ms(r.p99) : 'failed'}`);
+    if (!(r.p99 < GOAL_MS)) break;
+    capacity[name] = rate;
+  }
+  console.log(
+    `  ${name}: p99 ms at each rate ${steps.join(', ')} -> within ${GOAL_MS} ms up to ${capacity[name] ?? `< ${RATE}`} req/s`,
+  );
+}
+
 const base = results.trivial;
 console.log(
   `\nclosed loop: ${CONNECTIONS} connections, ${SECONDS} s each (2 shared cores; other work on the machine shares them)`,
@@ -385,5 +418,6 @@ console.log(
     `list ${ms(results.list.p99)} ms, trivial ${ms(base.p99)} ms at ${CONNECTIONS} connections ` +
     `(goal < ${GOAL_MS} ms) ${worst < GOAL_MS ? 'ok' : 'MISSED'}; at ${RATE} req/s: p99 pull ${ms(steadyResults.pull.p99)}, ` +
     `pull-day ${ms(steadyResults['pull-day'].p99)}, job ${ms(steadyResults.job.p99)}, workspace ${ms(steadyResults.workspace.p99)}, ` +
-    `list ${ms(steadyResults.list.p99)} ms (worst ${ms(worstSteady)} ms, ${worstSteady < GOAL_MS ? 'under' : 'over'} ${GOAL_MS} ms)`,
+    `list ${ms(steadyResults.list.p99)} ms (worst ${ms(worstSteady)} ms, ${worstSteady < GOAL_MS ? 'under' : 'over'} ${GOAL_MS} ms); ` +
+    `p99 within ${GOAL_MS} ms up to ${measured.map((n) => `${n} ${capacity[n] ?? `< ${RATE}`}`).join(', ')} req/s (trivial ${capacity.trivial ?? `< ${RATE}`})`,
 );
