@@ -40,7 +40,10 @@
 // goal, with the elements @ionic/react imports for components the app never shows (ion-icon,
 // ion-tab-bar, ion-tab-button) loaded only if one is used (pwa/vite.startup.ts,
 // deferredIonicTags): imported statically, they kept their code and the ripple effect in the
-// startup chunks. It stops the bundle from growing. Lower it with every step down; never raise
+// startup chunks; raised by 0.05 kB (≈198.99 kB) for Today reading its lists only after a new
+// phone's first sync (features/today/components/TodayScreen.tsx): it showed the lists from
+// before the sync ("nothing due") for a moment, then filled them and pushed the rest down
+// (pwa/e2e/today-layout.e2e.ts). It stops the bundle from growing. Lower it with every step down; never raise
 // it without saying why in the commit.
 import { join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -54,6 +57,6 @@ export default [
     name: `sign-in + Today JavaScript, gzipped (goal ${firstScreensGoalKb} kB)`,
     path: firstScreenFiles(dist).map((file) => relative(root, join(dist, file))),
     gzip: true,
-    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '198.94 kB',
+    limit: process.env.PANELPASS_BUNDLE_LIMIT ?? '198.99 kB',
   },
 ];
