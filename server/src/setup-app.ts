@@ -62,6 +62,15 @@ export function setupApp(app: NestExpressApplication, pwaDist?: string): void {
   app.use(refuseOtherOrigins(origins));
   app.enableCors(corsOptions(origins));
   app.use(compressApi());
+  // API answers are the business's own records, and the biggest carry the server's clock (a
+  // sync pull, a job's workspace), so a stored copy could not be used again: not stored, and
+  // no ETag (Express hashed every answer's body to make one, a day's pull 130 kB: a saving
+  // within the noise of scripts/bench/api). Routes that send files set their own Cache-Control.
+  app.set('etag', false);
+  app.use('/api', (_req: express.Request, res: express.Response, next: express.NextFunction) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
   SwaggerModule.setup('api/docs', app, () => buildOpenApi(app), {
     jsonDocumentUrl: 'api/docs-json',
   });

@@ -50,6 +50,13 @@ describe('response headers: CSP, HSTS, nosniff, Referrer-Policy, CORS allow-list
     expect((await api()).headers['content-type']).toMatch(/^application\/json/);
   });
 
+  it('API answers are not stored and carry no ETag; the app page is revalidated', async () => {
+    const res = await api();
+    expect(res.headers['cache-control']).toBe('no-store');
+    expect(res.headers.etag).toBeUndefined();
+    expect((await page()).headers['cache-control']).toBe('no-cache');
+  });
+
   it.each([
     ['page', page],
     ['API', api],
