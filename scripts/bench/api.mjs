@@ -353,30 +353,36 @@ for (const [name, path, auth] of endpoints) {
 }
 
 // 5. The highest steady rate each endpoint keeps within the goal: the rate raised by half from
-// API_BENCH_RATE (for API_BENCH_STEP_SECONDS each) until p99 reaches GOAL_MS.
+// API_BENCH_RATE (for API_BENCH_STEP_SECONDS each) until p99 reaches GOAL_MS twice in a row.
 const STEP_SECONDS = Number(process.env.API_BENCH_STEP_SECONDS ?? 4);
 const MAX_RATE = Number(process.env.API_BENCH_MAX_RATE ?? 3200);
 console.log(
-  `rate within the goal: ${CONNECTIONS} connections, the rate raised by half from ${RATE} req/s until p99 reaches ${GOAL_MS} ms, ${STEP_SECONDS} s a step`,
+  `rate within the goal: ${CONNECTIONS} connections, the rate raised by half from ${RATE} req/s until p99 reaches ${GOAL_MS} ms twice at one rate, ${STEP_SECONDS} s a step`,
 );
 const capacity = {};
+/** p99 of one step at `rate` (Infinity when a request failed). */
+async function stepP99(path, auth, rate) {
+  await api(url, path, { token: auth });
+  try {
+    return (
+      await steady(path, { token: auth, connections: CONNECTIONS, rate, seconds: STEP_SECONDS })
+    ).p99;
+  } catch {
+    return Number.POSITIVE_INFINITY;
+  }
+}
 for (const [name, path, auth] of endpoints) {
   const steps = [];
   for (let rate = RATE; rate <= MAX_RATE; rate = Math.round(rate * 1.5)) {
-    await api(url, path, { token: auth });
-    let r;
-    try {
-      r = await steady(path, {
-        token: auth,
-        connections: CONNECTIONS,
-        rate,
-        seconds: STEP_SECONDS,
-      });
-    } catch (e) {
-      r = { p99: Number.POSITIVE_INFINITY, failed: String(e) };
-    }
-    steps.push(`${rate}: ${Number.isFinite(r.p99) ? ms(r.p99) : 'failed'}`);
-    if (!(r.p99 < GOAL_MS)) break;
+    // A step over the goal is run once more before the search stops: a few seconds' p99 is
+    // the slowest 1 % of a few hundred requests, and one collection pause can make it.
+    const tries = [await stepP99(path, auth, rate)];
+    if (!(tries[0] < GOAL_MS)) tries.push(await stepP99(path, auth, rate));
+    const p99 = Math.min(...tries);
+    steps.push(
+      `${rate}: ${tries.map((t) => (Number.isFinite(t) ? ms(t) : 'failed')).join(' then ')}`,
+    );
+    if (!(p99 < GOAL_MS)) break;
     capacity[name] = rate;
   }
   console.log(
