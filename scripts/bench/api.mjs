@@ -353,7 +353,7 @@ for (const [name, path, auth] of endpoints) {
 }
 
 // 5. The highest steady rate each endpoint keeps within the goal: the rate raised by half from
-// API_BENCH_RATE (for API_BENCH_STEP_SECONDS each) until p99 reaches GOAL_MS twice in a row.
+// API_BENCH_RATE (for API_BENCH_STEP_SECONDS each) until p99 reaches GOAL_MS twice at one rate.
 const STEP_SECONDS = Number(process.env.API_BENCH_STEP_SECONDS ?? 4);
 const MAX_RATE = Number(process.env.API_BENCH_MAX_RATE ?? 3200);
 console.log(
