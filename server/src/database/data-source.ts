@@ -15,7 +15,17 @@ export function dataSourceOptions(url: string): DataSourceOptions {
     synchronize: false,
     migrationsRun: false,
     migrationsTransactionMode: 'each',
-    extra: { max: 20, connectionTimeoutMillis: 5000 },
+    extra: {
+      max: 20,
+      connectionTimeoutMillis: 5000,
+      // Named prepared statements (preparedQuery: the sync pull, a job, its workspace, the jobs
+      // list) are planned once per connection and the plan kept. PostgreSQL's default plans
+      // each of the first five runs afresh, and planning the pull costs about 17 ms against a
+      // millisecond to run it: right after a start, or as the pool grew, pulls at 300 req/s
+      // waited a median 38-509 ms against 6 ms (scripts/bench/api's data). TypeORM's own
+      // queries are unnamed and planned each time, as before.
+      options: '-c plan_cache_mode=force_generic_plan',
+    },
   };
 }
 
