@@ -5,10 +5,10 @@ import type { PostgresDriver } from 'typeorm/driver/postgres/PostgresDriver';
 
 /**
  * A query run as a named prepared statement: each pooled connection parses and plans it once
- * and keeps that generic plan (plan_cache_mode, see data-source.ts). For the big one-statement reads (a sync pull
- * names every synced table; planning it afresh cost more than running it). Errors come back
- * as TypeORM's QueryFailedError, as from `DataSource.query`, so the exception filter answers
- * them the same way.
+ * and keeps that generic plan (plan_cache_mode, see data-source.ts). For the big one-statement
+ * reads (a sync pull names every synced table; planning it afresh cost more than running it).
+ * Errors come back as TypeORM's QueryFailedError, as from `DataSource.query`, so the exception
+ * filter answers them the same way.
  */
 export async function preparedQuery<T>(
   ds: DataSource,
